@@ -47,3 +47,79 @@ type Edit struct {
 	Span    source.Span
 	NewText string
 }
+
+// Source is one host text handed to the Engine: a Markdown page, a plan
+// file, or the text of one Markdown cell of a notebook. Steps in a later
+// source may refer by label to steps in an earlier one (cells of one
+// notebook, in order).
+type Source struct {
+	Name string // file path or URI, used in messages only
+	Kind SourceKind
+	Text []byte
+}
+
+// SourceKind says how reaction lines are found in a Source's text.
+type SourceKind int
+
+const (
+	MarkdownPage SourceKind = iota + 1 // fenced ```reaction blocks
+	PlanFile                           // every non-blank, non-comment line
+	MarkdownCell                       // one notebook cell: like MarkdownPage
+)
+
+// Report is the analysis of one Source. It is immutable once returned.
+type Report struct {
+	Name        string
+	Steps       []StepReport
+	Diagnostics []Diagnostic
+}
+
+// StepReport is what the editor shows of one step besides diagnostics.
+type StepReport struct {
+	Span   source.Span // the whole step line in the host
+	Label  string      // "" when the step has none
+	Inlay  string      // short text shown at the end of the line (predicted product or configuration)
+	Tokens []Token     // parts of the line, for semantic highlighting
+}
+
+// Token is one classified part of a step line.
+type Token struct {
+	Span source.Span
+	Kind TokenKind
+}
+
+// TokenKind classifies a part of a step line.
+type TokenKind int
+
+const (
+	TokenLabel TokenKind = iota + 1
+	TokenReference
+	TokenSubstrate
+	TokenReagent
+	TokenSolvent
+	TokenAmount
+	TokenTemperature
+	TokenTime
+	TokenOperator // '+', ',', '->'
+	TokenProduct
+	TokenComment
+	TokenStatus // done / skipped marks
+)
+
+// Completion is one suggestion at a position in a step line.
+type Completion struct {
+	Label  string // what the user sees and what is inserted
+	Detail string // one line (e.g. "reagent · nucleophile · [N-]=[N+]=[N-]")
+	Doc    string // Markdown
+	Kind   CompletionKind
+	Span   source.Span // the text the completion replaces
+}
+
+// CompletionKind says what a Completion names.
+type CompletionKind int
+
+const (
+	CompleteReagent CompletionKind = iota + 1
+	CompleteSolvent
+	CompleteLabel
+)
