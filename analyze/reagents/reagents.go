@@ -57,7 +57,7 @@ type Solvent struct {
 	SMILES     string
 	Dielectric Value // relative permittivity near 25 °C
 	Protic     bool
-	BoilingC   Value // normal boiling point, °C
+	BoilingC   Value  // normal boiling point, °C
 	Class      string // "polar protic", "polar aprotic", "nonpolar"
 	Source     string
 }
