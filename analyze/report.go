@@ -123,3 +123,13 @@ const (
 	CompleteSolvent
 	CompleteLabel
 )
+
+// Config is what a lab or a user can set (from the project's settings file
+// or the editor's configuration).
+type Config struct {
+	LabNames       []byte   // contents of the lab's own names file, if any
+	LabNamesFile   string   // its path, for messages
+	Disabled       []string // diagnostic codes not to report
+	DefaultSolvent string   // used when a step names none ("" means the documented default)
+	DefaultTempC   *float64 // used when a step gives no temperature
+}
