@@ -80,6 +80,7 @@ type StepReport struct {
 	Label  string      // "" when the step has none
 	Inlay  string      // short text shown at the end of the line (predicted product or configuration)
 	Tokens []Token     // parts of the line, for semantic highlighting
+	Fixes  []Fix       // actions on the step not tied to a diagnostic (e.g. write the predicted product after '->')
 }
 
 // Token is one classified part of a step line.
