@@ -2,7 +2,13 @@ package analyze
 
 import (
 	"context"
+	"fmt"
+	"sort"
+	"strings"
+	"sync"
+	"sync/atomic"
 
+	"walden/grammar/notation"
 	"walden/grammar/source"
 )
 
@@ -10,34 +16,344 @@ import (
 // re-analyses only the steps that changed and those that refer to them.
 // An Engine is safe for concurrent use.
 //
-// STUB: the signatures are fixed; the bodies are being written.
+// The cache is keyed by a step line's text plus the products of the labels
+// it refers to; results hold positions relative to their line, so a line
+// moved by an edit above it is not analysed again.
 type Engine struct {
-	cfg Config
+	cfg      Config
+	dict     *dictionary
+	disabled map[string]bool
+
+	mu    sync.Mutex
+	lines map[string]*lineEntry // by line text
+	gen   uint64                // Analyze calls so far, for eviction
+
+	analysed atomic.Int64 // steps analysed (cache misses), for tests and figures
 }
 
+// lineEntry is everything cached for one line text: its parse and one
+// result per combination of referenced products.
+type lineEntry struct {
+	step    *notation.Step
+	errs    source.ErrorList
+	refs    []string // labels referred to, in order
+	results map[string]*stepResult
+	used    uint64 // the last Analyze generation that used it
+}
+
+// maxCachedLines bounds the cache; past it, lines not used by the latest
+// Analyze call are dropped.
+const maxCachedLines = 200_000
+
 // NewEngine returns an Engine using cfg.
-func NewEngine(cfg Config) *Engine { return &Engine{cfg: cfg} }
+func NewEngine(cfg Config) *Engine {
+	e := &Engine{cfg: cfg, dict: newDictionary(cfg), disabled: map[string]bool{}, lines: map[string]*lineEntry{}}
+	for _, c := range cfg.Disabled {
+		e.disabled[strings.TrimSpace(c)] = true
+	}
+	return e
+}
+
+// Config returns the configuration the Engine was made with.
+func (e *Engine) Config() Config { return e.cfg }
+
+// NamesErrors returns the problems found in the lab's names file, each
+// positioned in that file (Config.LabNamesFile).
+func (e *Engine) NamesErrors() source.ErrorList { return e.dict.errs }
+
+// Analysed returns how many step analyses the Engine has run (cache
+// misses), for tests and measurements.
+func (e *Engine) Analysed() int64 { return e.analysed.Load() }
+
+// labelDef is a label defined by a step, as later steps see it.
+type labelDef struct {
+	name   string
+	src    int         // index of the source defining it
+	span   source.Span // the name in its host
+	handOn *handOn
+}
 
 // Analyze returns one Report per source, in order. Labels defined in an
 // earlier source are visible to later ones. It returns ctx.Err() if the
 // context is cancelled before it finishes.
 func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) {
+	e.mu.Lock()
+	e.gen++
+	gen := e.gen
+	e.mu.Unlock()
+
 	reps := make([]*Report, len(srcs))
 	for i, s := range srcs {
-		reps[i] = &Report{Name: s.Name}
+		reps[i] = &Report{Name: s.Name, dict: e.dict}
 	}
+	// Every label of every source, so that a reference to a label defined
+	// further down is told apart from one defined nowhere.
+	found := make([][]foundLine, len(srcs))
+	finds := make([][]Diagnostic, len(srcs))
+	ents := make([][]*lineEntry, len(srcs))
+	later := map[string]bool{}
+	for i, s := range srcs {
+		found[i], finds[i] = findLines(s)
+		ents[i] = make([]*lineEntry, len(found[i]))
+		for n, l := range found[i] {
+			if n%256 == 0 && ctx.Err() != nil {
+				return reps, ctx.Err()
+			}
+			ent := e.entry(l.text, gen)
+			ents[i][n] = ent
+			if ent.step.Label != nil {
+				later[ent.step.Label.Name] = true
+			}
+		}
+	}
+	defined := map[string]*labelDef{}
+	var order []*labelDef
+	for i := range srcs {
+		rep := reps[i]
+		rep.Diagnostics = append(rep.Diagnostics, finds[i]...)
+		for n, l := range found[i] {
+			if n%64 == 0 && ctx.Err() != nil {
+				return reps, ctx.Err()
+			}
+			ent := ents[i][n]
+			refs := map[string]*handOn{}
+			key := make([]string, 0, len(ent.refs))
+			for _, name := range ent.refs {
+				if d, ok := defined[name]; ok {
+					refs[name] = d.handOn
+					key = append(key, name+"="+d.handOn.key())
+				} else {
+					key = append(key, name+"=?")
+				}
+			}
+			res := e.result(ent, strings.Join(key, "\x00"), refs)
+			ps := placedStep{base: l.start, span: source.Span{Start: l.start, End: l.start + source.Pos(len(l.text))}, res: res, text: l.text, nLabels: len(order)}
+			rep.steps = append(rep.steps, ps)
+			rep.Steps = append(rep.Steps, ps.report())
+			for _, d := range res.diags {
+				rep.Diagnostics = append(rep.Diagnostics, shiftDiag(d, l.start))
+			}
+			rep.Diagnostics = append(rep.Diagnostics, e.labelDiags(res, l.start, defined, later)...)
+			if res.label != "" {
+				if prev, dup := defined[res.label]; dup {
+					rep.Diagnostics = append(rep.Diagnostics, Diagnostic{Code: CodeLabelDuplicate, Severity: Error,
+						Message: fmt.Sprintf("label '%s' is already defined%s; later steps use the first one", res.label, where(prev, i, srcs)),
+						Span:    res.labelSpan.Shift(l.start)})
+				} else {
+					d := &labelDef{name: res.label, src: i, span: res.labelSpan.Shift(l.start), handOn: res.handOn}
+					defined[res.label] = d
+					order = append(order, d)
+				}
+			}
+		}
+		rep.labels = order[:len(order):len(order)]
+		rep.Diagnostics = e.filter(rep.Diagnostics)
+		sort.SliceStable(rep.Diagnostics, func(a, b int) bool { return rep.Diagnostics[a].Span.Start < rep.Diagnostics[b].Span.Start })
+	}
+	e.evict(gen)
 	return reps, ctx.Err()
 }
 
-// Hover returns Markdown describing what is at pos: a step (predicted
-// product, configuration before and after, mechanism, distribution,
-// reasons, cautions), a reagent or solvent (its data and sources), or an
-// atom of a SMILES (its CIP label and role). ok is false where there is
-// nothing to say.
-func (r *Report) Hover(pos source.Pos) (markdown string, span source.Span, ok bool) {
-	return "", source.Span{}, false
+// where says in which source an earlier definition is, when not this one.
+func where(d *labelDef, cur int, srcs []Source) string {
+	if d.src == cur {
+		return " above"
+	}
+	return " in " + srcs[d.src].Name
 }
 
-// Complete returns suggestions at pos (reagent and solvent names, or step
-// labels where a reference is expected).
-func (r *Report) Complete(pos source.Pos) []Completion { return nil }
+// labelDiags reports references that do not resolve. They depend on the
+// whole document, so they are made here rather than cached with the step.
+func (e *Engine) labelDiags(res *stepResult, base source.Pos, defined map[string]*labelDef, later map[string]bool) []Diagnostic {
+	var out []Diagnostic
+	for _, r := range res.refs {
+		d, ok := defined[r.name]
+		span := r.span.Shift(base)
+		switch {
+		case ok && d.handOn == nil:
+			out = append(out, Diagnostic{Code: CodeLabelNoProduct, Severity: Warning, Span: span,
+				Message: fmt.Sprintf("step '%s' yields no product to use (it was not analysed and has no product written after '->')", r.name)})
+		case ok:
+		case r.name == res.label:
+			out = append(out, Diagnostic{Code: CodeLabelForward, Severity: Error, Span: span,
+				Message: fmt.Sprintf("step '%s' refers to its own product", r.name)})
+		case later[r.name]:
+			out = append(out, Diagnostic{Code: CodeLabelForward, Severity: Error, Span: span,
+				Message: fmt.Sprintf("label '%s' is defined only further down; a step can use only the products of steps before it", r.name)})
+		default:
+			msg := fmt.Sprintf("no step is labelled '%s'", r.name)
+			var fixes []Fix
+			if near := closestLabels(r.name, defined); len(near) > 0 {
+				msg += "; did you mean " + orList(quoteAll(near)) + "?"
+				for i, n := range near {
+					fixes = append(fixes, Fix{Title: "Refer to '" + n + "'", Edits: []Edit{{Span: span, NewText: "@" + n}}, Preferred: i == 0})
+				}
+			} else {
+				msg += "; label a step by starting its line with 'name:'"
+			}
+			out = append(out, Diagnostic{Code: CodeLabelUnresolved, Severity: Error, Span: span, Message: msg, Fixes: fixes})
+		}
+	}
+	return out
+}
+
+// entry returns the cached parse of a line, parsing it on first sight.
+func (e *Engine) entry(text string, gen uint64) *lineEntry {
+	e.mu.Lock()
+	ent, ok := e.lines[text]
+	if ok {
+		ent.used = gen
+		e.mu.Unlock()
+		return ent
+	}
+	e.mu.Unlock()
+	step, errs := notation.Parse([]byte(text), 0)
+	ent = &lineEntry{step: step, errs: errs, results: map[string]*stepResult{}, used: gen}
+	for _, r := range references(step) {
+		ent.refs = append(ent.refs, r.name)
+	}
+	e.mu.Lock()
+	if old, ok := e.lines[text]; ok {
+		ent = old // another goroutine parsed it first
+		ent.used = gen
+	} else {
+		e.lines[text] = ent
+	}
+	e.mu.Unlock()
+	return ent
+}
+
+// result returns the cached analysis of a line for the given referenced
+// products, analysing it on a miss.
+func (e *Engine) result(ent *lineEntry, key string, refs map[string]*handOn) *stepResult {
+	e.mu.Lock()
+	res, ok := ent.results[key]
+	e.mu.Unlock()
+	if ok {
+		return res
+	}
+	res = e.analyseSafely(ent, refs)
+	e.mu.Lock()
+	if old, ok := ent.results[key]; ok {
+		res = old
+	} else {
+		if len(ent.results) > 8 {
+			clear(ent.results) // a line whose references keep changing: keep only the latest
+		}
+		ent.results[key] = res
+	}
+	e.mu.Unlock()
+	return res
+}
+
+// analyseSafely runs analyseStep and turns a panic in the chemistry into
+// a diagnostic on the line: the core must not fail.
+func (e *Engine) analyseSafely(ent *lineEntry, refs map[string]*handOn) (res *stepResult) {
+	defer func() {
+		if p := recover(); p != nil {
+			res = &stepResult{diags: []Diagnostic{{Code: CodeNotAnalysed, Severity: Info, Span: ent.step.Span,
+				Message: fmt.Sprintf("not analysed: internal error (%v); please report this line", p)}}, inlay: "not analysed"}
+		}
+	}()
+	return e.analyseStep(ent.step, ent.errs, refs)
+}
+
+// evict drops lines unused by the latest call once the cache is too big.
+func (e *Engine) evict(gen uint64) {
+	e.mu.Lock()
+	defer e.mu.Unlock()
+	if len(e.lines) <= maxCachedLines {
+		return
+	}
+	for k, v := range e.lines {
+		if v.used < gen {
+			delete(e.lines, k)
+		}
+	}
+}
+
+// filter drops the diagnostics whose codes the Config disables.
+func (e *Engine) filter(ds []Diagnostic) []Diagnostic {
+	if len(e.disabled) == 0 {
+		return ds
+	}
+	out := ds[:0]
+	for _, d := range ds {
+		if !e.disabled[d.Code] {
+			out = append(out, d)
+		}
+	}
+	return out
+}
+
+// shiftDiag moves a line-relative diagnostic to its host position.
+func shiftDiag(d Diagnostic, by source.Pos) Diagnostic {
+	d.Span = d.Span.Shift(by)
+	if len(d.Related) > 0 {
+		rel := make([]Related, len(d.Related))
+		for i, r := range d.Related {
+			rel[i] = Related{Span: r.Span.Shift(by), Message: r.Message}
+		}
+		d.Related = rel
+	}
+	d.Fixes = shiftFixes(d.Fixes, by)
+	return d
+}
+
+func shiftFixes(fs []Fix, by source.Pos) []Fix {
+	if len(fs) == 0 {
+		return nil
+	}
+	out := make([]Fix, len(fs))
+	for i, f := range fs {
+		out[i] = Fix{Title: f.Title, Preferred: f.Preferred, Edits: make([]Edit, len(f.Edits))}
+		for j, ed := range f.Edits {
+			out[i].Edits[j] = Edit{Span: ed.Span.Shift(by), NewText: ed.NewText}
+		}
+	}
+	return out
+}
+
+// closestLabels returns up to three defined labels close to name.
+func closestLabels(name string, defined map[string]*labelDef) []string {
+	type cand struct {
+		n string
+		d int
+	}
+	var cs []cand
+	for n := range defined {
+		a, b := strings.ToLower(name), strings.ToLower(n)
+		d := editDistance(a, b)
+		if d <= max(1, len(name)/3) || len(b) >= 2 && (strings.HasPrefix(a, b) || strings.HasPrefix(b, a)) {
+			cs = append(cs, cand{n, d})
+		}
+	}
+	sort.Slice(cs, func(i, j int) bool { return cs[i].d < cs[j].d || cs[i].d == cs[j].d && cs[i].n < cs[j].n })
+	var out []string
+	for i := 0; i < len(cs) && i < 3; i++ {
+		out = append(out, cs[i].n)
+	}
+	return out
+}
+
+// editDistance is the Levenshtein distance between a and b.
+func editDistance(a, b string) int {
+	ra, rb := []rune(a), []rune(b)
+	prev := make([]int, len(rb)+1)
+	cur := make([]int, len(rb)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(ra); i++ {
+		cur[0] = i
+		for j := 1; j <= len(rb); j++ {
+			c := 1
+			if ra[i-1] == rb[j-1] {
+				c = 0
+			}
+			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+c)
+		}
+		prev, cur = cur, prev
+	}
+	return prev[len(rb)]
+}

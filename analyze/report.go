@@ -72,6 +72,10 @@ type Report struct {
 	Name        string
 	Steps       []StepReport
 	Diagnostics []Diagnostic
+
+	steps  []placedStep // the cached results behind Steps, for Hover and Complete
+	labels []*labelDef  // labels defined up to the end of this source, in order
+	dict   *dictionary  // for completion
 }
 
 // StepReport is what the editor shows of one step besides diagnostics.
@@ -81,6 +85,9 @@ type StepReport struct {
 	Inlay  string      // short text shown at the end of the line (predicted product or configuration)
 	Tokens []Token     // parts of the line, for semantic highlighting
 	Fixes  []Fix       // actions on the step not tied to a diagnostic (e.g. write the predicted product after '->')
+	// Prediction is the outcome of the step; nil for a line with no
+	// reaction or a substrate that could not be read.
+	Prediction *Prediction
 }
 
 // Token is one classified part of a step line.
@@ -105,6 +112,7 @@ const (
 	TokenProduct
 	TokenComment
 	TokenStatus // done / skipped marks
+	TokenSetup  // the vessel or set-up: "sealed tube", "microwave"
 )
 
 // Completion is one suggestion at a position in a step line.

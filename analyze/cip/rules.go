@@ -1,0 +1,209 @@
+package cip
+
+// ruleID names one sequence rule.
+type ruleID uint8
+
+const (
+	rule1a ruleID = iota
+	rule1b
+	rule2
+	rule3
+	rule4a
+	rule4b
+	rule4c
+	rule5
+	rule6
+)
+
+// rule is a sequence rule as used in one comparison. ref is set only for
+// the stand-in forms of rules 4b and 5 that rank branches relative to a
+// reference descriptor while descriptor lists are built (P-92.5.2.2).
+type rule struct {
+	id  ruleID
+	ref Letter
+}
+
+// sequence lists the rules in the order they are applied: the
+// constitutional rules 1a, 1b and 2 first, then the stereo rules (P-92.1.3).
+var sequence = []rule{{rule1a, None}, {rule1b, None}, {rule2, None}, {rule3, None},
+	{rule4a, None}, {rule4b, None}, {rule4c, None}, {rule5, None}, {rule6, None}}
+
+// constitutional is the prefix of sequence that needs no auxiliary
+// descriptors.
+var constitutional = sequence[:3]
+
+// Rules 4b and 5 with a reference descriptor: alone (the way such a rule
+// explores its own branches) and in place of the plain rule at the end of
+// the sequence that orders branches while descriptor lists are built.
+var (
+	only4bR = []rule{{rule4b, R}}
+	only4bS = []rule{{rule4b, S}}
+	only5R  = []rule{{rule5, R}}
+	only5S  = []rule{{rule5, S}}
+	with4bR = append(append([]rule(nil), sequence[:5]...), rule{rule4b, R})
+	with4bS = append(append([]rule(nil), sequence[:5]...), rule{rule4b, S})
+	with5R  = append(append([]rule(nil), sequence[:7]...), rule{rule5, R})
+	with5S  = append(append([]rule(nil), sequence[:7]...), rule{rule5, S})
+)
+
+// explorer returns the rules that order the branches while rule r is
+// explored sphere by sphere: r and the rules before it.
+func explorer(r rule) []rule {
+	switch {
+	case r.ref == None:
+		return sequence[:r.id+1]
+	case r.id == rule4b && r.ref == R:
+		return only4bR
+	case r.id == rule4b:
+		return only4bS
+	case r.ref == R:
+		return only5R
+	}
+	return only5S
+}
+
+// withRef returns the sequence up to rule id (4b or 5) with that rule
+// replaced by its form relative to ref.
+func withRef(id ruleID, ref Letter) []rule {
+	switch {
+	case id == rule4b && ref == R:
+		return with4bR
+	case id == rule4b:
+		return with4bS
+	case ref == R:
+		return with5R
+	}
+	return with5S
+}
+
+// compare ranks the far ends of edges a and b by rule r alone, looking no
+// further: >0 when a ranks higher, <0 when b does. Rule 5 answers ±2 when
+// the two differ as enantiomorphs, which makes a centre pseudo-asymmetric.
+func (g *digraph) compare(r rule, a, b int32) int {
+	switch r.id {
+	case rule1a:
+		return compare1a(g, a, b)
+	case rule1b:
+		return compare1b(g, a, b)
+	case rule2:
+		return compare2(g, a, b)
+	case rule3:
+		return compare3(g, a, b)
+	case rule4a:
+		return compare4a(g, a, b)
+	case rule4b:
+		return compare4b(g, r.ref, a, b)
+	case rule4c:
+		return compare4c(g, a, b)
+	case rule5:
+		return compare5(g, r.ref, a, b)
+	case rule6:
+		return compare6(g, a, b)
+	}
+	return 0
+}
+
+// explore compares the branches behind edges a and b by rule r over the
+// whole digraph, sphere by sphere, the higher-ranked branches first
+// (hierarchical digraph exploration, P-92.1.4 and Hanson et al. 2018,
+// section 2): at each pair of nodes the sets of children are compared
+// in order, first as ranked by this sphere alone and then, if equal, in
+// the order the full exploration of each child gives.
+func (g *digraph) explore(r rule, a, b int32) int {
+	if g.nodes[g.edges[a].end].zNum == 0 || g.nodes[g.edges[b].end].zNum == 0 {
+		return 0
+	}
+	if c := g.compare(r, a, b); c != 0 {
+		return c
+	}
+	seq := explorer(r)
+	qa := []int32{a}
+	qb := []int32{b}
+	var as, bs []int32
+	for pos := 0; pos < len(qa) && pos < len(qb); pos++ {
+		na, nb := g.edges[qa[pos]].end, g.edges[qb[pos]].end
+		as = g.out(na, as[:0])
+		bs = g.out(nb, bs[:0])
+		g.rank(na, as, false, seq)
+		g.rank(nb, bs, false, seq)
+		for i := 0; i < len(as) && i < len(bs); i++ {
+			if g.nodes[g.edges[as[i]].end].zNum == 0 || g.nodes[g.edges[bs[i]].end].zNum == 0 {
+				return 0
+			}
+			if c := g.compare(r, as[i], bs[i]); c != 0 {
+				return c
+			}
+		}
+		if len(as) != len(bs) {
+			return sign(len(as) - len(bs))
+		}
+		g.rank(na, as, true, seq)
+		g.rank(nb, bs, true, seq)
+		for i := range as {
+			if g.nodes[g.edges[as[i]].end].zNum == 0 || g.nodes[g.edges[bs[i]].end].zNum == 0 {
+				return 0
+			}
+			if c := g.compare(r, as[i], bs[i]); c != 0 {
+				return c
+			}
+			qa = append(qa, as[i])
+			qb = append(qb, bs[i])
+		}
+	}
+	return 0
+}
+
+// ligands compares two edges leaving the same node by every rule of seq
+// in turn; deep explores each rule over the whole digraph.
+func (g *digraph) ligands(seq []rule, a, b int32, deep bool) int {
+	for _, r := range seq {
+		var c int
+		if deep {
+			c = g.explore(r, a, b)
+		} else {
+			c = g.compare(r, a, b)
+		}
+		if c != 0 {
+			return c
+		}
+	}
+	return 0
+}
+
+// rank sorts es, edges leaving n, highest first by the rules of seq. It
+// reports whether every ligand was told apart, and whether exactly one
+// comparison was decided by an enantiomorphic pair (rule 5), which makes
+// the unit pseudo-asymmetric.
+func (g *digraph) rank(n int32, es []int32, deep bool, seq []rule) (unique, pseudo bool) {
+	unique = true
+	enantio := 0
+	for i := 1; i < len(es); i++ {
+		for j := i; j > 0; j-- {
+			c := g.ligands(seq, es[j-1], es[j], deep)
+			if c < -1 || c > 1 {
+				enantio++
+			}
+			if c < 0 {
+				es[j], es[j-1] = es[j-1], es[j]
+				continue
+			}
+			if c == 0 {
+				unique = false
+			}
+			break
+		}
+	}
+	return unique, enantio == 1
+}
+
+// groups splits ranked edges into runs that seq cannot tell apart.
+func (g *digraph) groups(seq []rule, es []int32) [][]int32 {
+	var out [][]int32
+	for i, e := range es {
+		if i == 0 || g.ligands(seq, es[i-1], e, true) != 0 {
+			out = append(out, nil)
+		}
+		out[len(out)-1] = append(out[len(out)-1], e)
+	}
+	return out
+}

@@ -1,0 +1,199 @@
+package analyze
+
+import (
+	"context"
+	"flag"
+	"fmt"
+	"os"
+	"path/filepath"
+	"regexp"
+	"sort"
+	"strings"
+	"testing"
+
+	"walden/grammar/source"
+)
+
+var update = flag.Bool("update", false, "rewrite golden files")
+
+// TestFeatures runs every notebook under testdata/features. Each is a
+// small document: step lines, and after a step a comment line
+//
+//	// want: code code …
+//
+// naming diagnostics the step must carry ("// want: none" for a step that
+// must carry no error or warning). The full analysis — diagnostics with
+// the text they mark, fixes, inlay and hover — is compared with the
+// golden file beside it; run with -update to rewrite it after checking
+// the difference by eye.
+func TestFeatures(t *testing.T) {
+	needOutcome(t)
+	files, _ := filepath.Glob("testdata/features/*")
+	for _, f := range files {
+		kind := MarkdownPage
+		switch filepath.Ext(f) {
+		case ".steps":
+			kind = PlanFile
+		case ".md":
+		default:
+			continue
+		}
+		t.Run(filepath.Base(f), func(t *testing.T) {
+			text, err := os.ReadFile(f)
+			if err != nil {
+				t.Fatal(err)
+			}
+			reps, err := NewEngine(Config{}).Analyze(context.Background(), []Source{{Name: f, Kind: kind, Text: text}})
+			if err != nil {
+				t.Fatal(err)
+			}
+			checkWants(t, text, reps[0])
+			golden(t, f+".golden", describe(text, reps[0]))
+		})
+	}
+}
+
+var wantLine = regexp.MustCompile(`(?m)^[ \t]*//[ \t]*want:[ \t]*(.*)$`)
+
+// checkWants checks the "// want:" comments against the diagnostics of
+// the step line just above each.
+func checkWants(t *testing.T, text []byte, rep *Report) {
+	t.Helper()
+	m := source.NewMapper(text)
+	for _, loc := range wantLine.FindAllSubmatchIndex(text, -1) {
+		at := source.Pos(loc[0])
+		want := strings.Fields(strings.ReplaceAll(string(text[loc[2]:loc[3]]), ",", " "))
+		var step *StepReport
+		for i := range rep.Steps {
+			if rep.Steps[i].Span.End <= at {
+				step = &rep.Steps[i]
+			}
+		}
+		line := m.Point(at).Line
+		if step == nil {
+			t.Errorf("line %d: '// want:' with no step above it", line)
+			continue
+		}
+		got := map[string]bool{}
+		serious := []string{}
+		for _, d := range rep.Diagnostics {
+			if d.Span.Start >= step.Span.Start && d.Span.Start <= step.Span.End {
+				got[d.Code] = true
+				if d.Severity <= Warning {
+					serious = append(serious, d.Code)
+				}
+			}
+		}
+		for _, w := range want {
+			if w == "none" {
+				if len(serious) > 0 {
+					t.Errorf("line %d: want no errors or warnings on %q, got %v", line, text[step.Span.Start:step.Span.End], serious)
+				}
+				continue
+			}
+			if !got[w] {
+				var have []string
+				for c := range got {
+					have = append(have, c)
+				}
+				sort.Strings(have)
+				t.Errorf("line %d: want %s on %q, got %v", line, w, text[step.Span.Start:step.Span.End], have)
+			}
+		}
+	}
+}
+
+// describe writes a report as a readable document: each step with its
+// inlay, the diagnostics under it with the text they mark, fixes and
+// related parties, and the hover.
+func describe(text []byte, rep *Report) string {
+	var b strings.Builder
+	m := source.NewMapper(text)
+	quote := func(s source.Span) string { return fmt.Sprintf("%q", text[s.Start:s.End]) }
+	for _, st := range rep.Steps {
+		fmt.Fprintf(&b, "== %d: %s\n", m.Point(st.Span.Start).Line, text[st.Span.Start:st.Span.End])
+		if st.Label != "" {
+			fmt.Fprintf(&b, "   label: %s\n", st.Label)
+		}
+		if st.Inlay != "" {
+			fmt.Fprintf(&b, "   inlay: %s\n", st.Inlay)
+		}
+		for _, d := range rep.Diagnostics {
+			if d.Span.Start < st.Span.Start || d.Span.Start > st.Span.End {
+				continue
+			}
+			fmt.Fprintf(&b, "   %s %s on %s: %s\n", d.Severity, d.Code, quote(d.Span), d.Message)
+			for _, r := range d.Related {
+				fmt.Fprintf(&b, "      related %s: %s\n", quote(r.Span), r.Message)
+			}
+			for _, f := range d.Fixes {
+				fmt.Fprintf(&b, "      fix %q:%s\n", f.Title, edits(text, f.Edits))
+			}
+		}
+		for _, f := range st.Fixes {
+			fmt.Fprintf(&b, "   action %q:%s\n", f.Title, edits(text, f.Edits))
+		}
+		if md, _, ok := rep.Hover(st.Span.Start + source.Pos(len(st.Label))); ok {
+			for _, l := range strings.Split(strings.TrimRight(md, "\n"), "\n") {
+				fmt.Fprintf(&b, "   | %s\n", l)
+			}
+		}
+	}
+	return b.String()
+}
+
+func edits(text []byte, es []Edit) string {
+	var b strings.Builder
+	for _, e := range es {
+		fmt.Fprintf(&b, " %q→%q", text[e.Span.Start:e.Span.End], e.NewText)
+	}
+	return b.String()
+}
+
+// golden compares got with the golden file, or rewrites it with -update.
+func golden(t *testing.T, file, got string) {
+	t.Helper()
+	if *update {
+		if err := os.WriteFile(file, []byte(got), 0o644); err != nil {
+			t.Fatal(err)
+		}
+		return
+	}
+	want, err := os.ReadFile(file)
+	if err != nil {
+		t.Fatalf("%v (run with -update to create it)", err)
+	}
+	if string(want) != got {
+		t.Errorf("%s differs (run with -update and check the diff):\n%s", file, diffLines(string(want), got))
+	}
+}
+
+// diffLines shows the first lines that differ.
+func diffLines(a, b string) string {
+	al, bl := strings.Split(a, "\n"), strings.Split(b, "\n")
+	var out strings.Builder
+	n := 0
+	for i := 0; i < max(len(al), len(bl)) && n < 12; i++ {
+		var x, y string
+		if i < len(al) {
+			x = al[i]
+		}
+		if i < len(bl) {
+			y = bl[i]
+		}
+		if x != y {
+			fmt.Fprintf(&out, "line %d\n  want: %s\n  got:  %s\n", i+1, x, y)
+			n++
+		}
+	}
+	return out.String()
+}
+
+// needOutcome skips tests that need predictions while the outcome
+// engine is not wired in.
+func needOutcome(t *testing.T) {
+	t.Helper()
+	if runOutcome == nil {
+		t.Skip("waiting for outcome.Predict")
+	}
+}

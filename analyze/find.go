@@ -1,0 +1,35 @@
+package analyze
+
+import (
+	"walden/grammar/notebook"
+	"walden/grammar/source"
+)
+
+// foundLine is one step line of a source: its text and where it starts.
+type foundLine struct {
+	start source.Pos
+	text  string
+}
+
+// findLines finds the step lines of a source, with the finder's errors
+// (unterminated fences, binary text) as diagnostics.
+func findLines(s Source) ([]foundLine, []Diagnostic) {
+	f := notebook.Markdown
+	if s.Kind == PlanFile {
+		f = notebook.Plan
+	}
+	pg := notebook.Find(f, s.Text)
+	lines := make([]foundLine, 0, len(pg.Lines))
+	for _, l := range pg.Lines {
+		lines = append(lines, foundLine{start: l.Span.Start, text: string(s.Text[l.Span.Start:l.Span.End])})
+	}
+	var diags []Diagnostic
+	for _, e := range pg.Errors {
+		code := e.Code
+		if code == "" {
+			code = CodeSyntax
+		}
+		diags = append(diags, Diagnostic{Code: code, Severity: Error, Message: e.Msg, Span: e.Span})
+	}
+	return lines, diags
+}

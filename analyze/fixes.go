@@ -1,0 +1,105 @@
+package analyze
+
+import (
+	"fmt"
+
+	"walden/grammar/notation"
+	"walden/grammar/source"
+)
+
+// chemFixes turns fixes in chemical terms into edits of the line.
+func chemFixes(in *stepInput, fs []chemFix) []Fix {
+	var out []Fix
+	for i, f := range fs {
+		var edits []Edit
+		switch f.kind {
+		case fixSwapSolvent:
+			if sp, _, ok := spanOf(in, partySolvent, f.index); ok {
+				edits = []Edit{{Span: sp, NewText: f.text}}
+			} else {
+				edits = []Edit{appendCondition(in.parsed, f.text)}
+			}
+		case fixReplaceReagent:
+			if sp, _, ok := spanOf(in, partyReagent, f.index); ok {
+				edits = []Edit{{Span: sp, NewText: f.text}}
+			}
+		case fixTemperature:
+			if sp, _, ok := spanOf(in, partyTemperature, 0); ok {
+				edits = []Edit{{Span: sp, NewText: f.text}}
+			} else {
+				edits = []Edit{appendCondition(in.parsed, f.text)}
+			}
+		case fixActivate:
+			edits = activationEdits(in, f.text)
+		}
+		if len(edits) == 0 {
+			continue
+		}
+		out = append(out, Fix{Title: f.title, Edits: edits, Preferred: i == 0})
+	}
+	return out
+}
+
+// activationEdits inserts a new step line before this one that turns the
+// substrate's poor leaving group into a good one, and makes this step use
+// its product by label. reagents is what follows the substrate in the new
+// line ("TsCl + pyridine, DCM, 0 °C").
+func activationEdits(in *stepInput, reagents string) []Edit {
+	s := in.substrate
+	if s == nil {
+		return nil
+	}
+	label := "act"
+	if in.parsed.Label != nil {
+		label = in.parsed.Label.Name + "-act"
+	}
+	line := fmt.Sprintf("%s: %s + %s\n", label, s.text, reagents)
+	if s.ref != "" {
+		line = fmt.Sprintf("%s: @%s + %s\n", label, s.ref, reagents)
+	}
+	start := in.parsed.Span.Start
+	return []Edit{
+		{Span: source.Span{Start: start, End: start}, NewText: line},
+		{Span: s.span, NewText: "@" + label},
+	}
+}
+
+// appendCondition adds ", text" after the last condition (before any
+// arrow or comment).
+func appendCondition(p *notation.Step, text string) Edit {
+	at := lastTermEnd(p)
+	return Edit{Span: source.Span{Start: at, End: at}, NewText: ", " + text}
+}
+
+// lastTermEnd is where the reactants and conditions end.
+func lastTermEnd(p *notation.Step) source.Pos {
+	at := p.Span.Start
+	for _, list := range [][]*notation.Term{p.Reactants, p.Conditions} {
+		for _, t := range list {
+			if t.Span.End > at {
+				at = t.Span.End
+			}
+		}
+	}
+	if p.Label != nil && p.Label.Span.End > at {
+		at = p.Label.Span.End
+	}
+	return at
+}
+
+// stepFixes are the actions on a step not tied to a diagnostic: write the
+// predicted product after '->' when the chemist wrote none.
+func stepFixes(p *notation.Step, in *stepInput, pred *prediction) []Fix {
+	if len(in.products) > 0 || len(pred.products) == 0 || pred.notAnalysed != "" {
+		return nil
+	}
+	smi := pred.products[0].smiles
+	var e Edit
+	if p.Arrow != nil {
+		e = Edit{Span: source.Span{Start: p.Arrow.Span.End, End: p.Arrow.Span.End}, NewText: " " + smi}
+	} else {
+		at := lastTermEnd(p)
+		e = Edit{Span: source.Span{Start: at, End: at}, NewText: " -> " + smi}
+	}
+	return []Fix{{Title: "Write the predicted product after '->'", Edits: []Edit{e}}}
+}

@@ -1,0 +1,283 @@
+package molecule
+
+// Aromaticity perception, used by the canonical SMILES writer so that
+// Kekulé and aromatic input of one structure come out alike.
+//
+// Model (simple Hückel rule, common practice; close to RDKit's default
+// model): a ring is aromatic when every atom in it is a candidate and
+// the ring holds 4n+2 pi electrons. Candidates and their electrons:
+//   - an atom with one double bond that lies on a ring, to another
+//     candidate: 1 (the usual sp2 carbon or pyridine nitrogen);
+//   - an atom with an exocyclic double bond to O, S, Se or N: 0 (pyridone
+//     carbon);
+//   - N, P, As with three neighbours (hydrogens counted) and no charge,
+//     or with two and charge -1: 2 (pyrrole, indolizine);
+//   - O, S, Se, Te with two neighbours and no charge: 2 (furan, thiophene);
+//   - C with charge -1 and no double bond: 2; with charge +1: 0;
+//   - B with three neighbours and no charge: 0.
+// Elements other than B, C, N, O, P, S, As, Se, Te are never candidates;
+// a triple bond or two double bonds disqualify an atom. Rings considered
+// are all simple cycles of up to MaxAromaticRing atoms, and every pair of
+// them fused on one bond (so azulene's 10-electron perimeter counts).
+// Larger rings ([18]annulene) are not perceived: a documented limit.
+
+// MaxAromaticRing is the largest single ring tested for aromaticity.
+const MaxAromaticRing = 8
+
+// cycleBudget bounds the search for small cycles in dense graphs.
+const cycleBudget = 200_000
+
+func aromaticElement(e Element) bool {
+	switch e {
+	case B, C, N, O, P, S, As, Se, 52:
+		return true
+	}
+	return false
+}
+
+// piElectrons returns the pi electrons atom i gives to a ring, or -1 when
+// it cannot be part of an aromatic ring.
+func (m *Molecule) piElectrons(i int, ring []bool) int {
+	a := &m.Atoms[i]
+	if !aromaticElement(a.Element) {
+		return -1
+	}
+	doubles, partner, bond := 0, -1, -1
+	for _, e := range m.adj[i] {
+		switch m.Bonds[e.Bond].Order {
+		case 2:
+			doubles++
+			partner, bond = e.Atom, e.Bond
+		case 1:
+		default:
+			return -1
+		}
+	}
+	if doubles > 1 {
+		return -1
+	}
+	if doubles == 1 {
+		if ring[bond] {
+			if aromaticElement(m.Atoms[partner].Element) {
+				return 1
+			}
+			return -1
+		}
+		switch m.Atoms[partner].Element {
+		case O, S, Se, N:
+			return 0
+		}
+		return -1
+	}
+	n := len(m.adj[i]) + a.ImplicitH
+	switch a.Element {
+	case C:
+		switch a.Charge {
+		case -1:
+			return 2
+		case 1:
+			return 0
+		}
+	case N, P, As:
+		if a.Charge == 0 && n == 3 || a.Charge == -1 && n == 2 {
+			return 2
+		}
+	case O, S, Se, 52:
+		if a.Charge == 0 && n == 2 {
+			return 2
+		}
+	case B:
+		if a.Charge == 0 && n == 3 {
+			return 0
+		}
+	}
+	return -1
+}
+
+// Aromaticity reports which atoms and bonds are aromatic by the model
+// above, from the Kekulé bond orders (Bond.Order); Bond.Aromatic and
+// Atom.Aromatic are not consulted.
+func (m *Molecule) Aromaticity() (atoms, bonds []bool) {
+	n := len(m.Atoms)
+	atoms = make([]bool, n)
+	bonds = make([]bool, len(m.Bonds))
+	ring := m.RingBonds()
+	elec := make([]int8, n)
+	cand := false
+	for i := range n {
+		elec[i] = int8(m.piElectrons(i, ring))
+		if elec[i] >= 0 {
+			cand = true
+		}
+	}
+	if !cand {
+		return atoms, bonds
+	}
+	cycles := m.smallCycles(elec, ring)
+	if len(cycles) == 0 {
+		return atoms, bonds
+	}
+	arom := make([]bool, len(cycles))
+	mark := func(c []int) {
+		for k, a := range c {
+			atoms[a] = true
+			b := m.BondBetween(a, c[(k+1)%len(c)])
+			bonds[b] = true
+		}
+	}
+	for ci, c := range cycles {
+		sum := 0
+		for _, a := range c {
+			sum += int(elec[a])
+		}
+		if sum%4 == 2 {
+			arom[ci] = true
+			mark(c)
+		}
+	}
+	// Pairs fused on exactly one bond: the perimeter holds the union of
+	// atoms, each counted once.
+	inA := make([]bool, n)
+	for i := range cycles {
+		for _, a := range cycles[i] {
+			inA[a] = true
+		}
+		for j := i + 1; j < len(cycles); j++ {
+			if arom[i] && arom[j] {
+				continue
+			}
+			shared, sum := 0, 0
+			for _, a := range cycles[i] {
+				sum += int(elec[a])
+			}
+			for _, a := range cycles[j] {
+				if inA[a] {
+					shared++
+				} else {
+					sum += int(elec[a])
+				}
+			}
+			if shared != 2 || sum%4 != 2 {
+				continue
+			}
+			// The two shared atoms must be bonded (fused, not bridged).
+			var s [2]int
+			k := 0
+			for _, a := range cycles[j] {
+				if inA[a] {
+					s[k] = a
+					k++
+				}
+			}
+			if m.BondBetween(s[0], s[1]) < 0 {
+				continue
+			}
+			mark(cycles[i])
+			mark(cycles[j])
+		}
+		for _, a := range cycles[i] {
+			inA[a] = false
+		}
+	}
+	// An aromatic atom whose double bond leaves the aromatic bonds could
+	// not be read back from lower-case SMILES; such rings stay Kekulé.
+	for changed := true; changed; {
+		changed = false
+		for i := range n {
+			if !atoms[i] {
+				continue
+			}
+			for _, e := range m.adj[i] {
+				if m.Bonds[e.Bond].Order == 2 && !bonds[e.Bond] && elec[i] == 1 {
+					for ci, c := range cycles {
+						if !containsAtom(c, i) {
+							continue
+						}
+						arom[ci] = false
+						for k, a := range c {
+							atoms[a] = false
+							bonds[m.BondBetween(a, c[(k+1)%len(c)])] = false
+						}
+					}
+					changed = true
+				}
+			}
+		}
+		if changed {
+			// Re-mark what remains aromatic by single rings.
+			for ci, c := range cycles {
+				if arom[ci] {
+					mark(c)
+				}
+			}
+		}
+	}
+	for i := range n {
+		if !atoms[i] {
+			continue
+		}
+		any := false
+		for _, e := range m.adj[i] {
+			if bonds[e.Bond] {
+				any = true
+			}
+		}
+		atoms[i] = any
+	}
+	return atoms, bonds
+}
+
+func containsAtom(c []int, a int) bool {
+	for _, x := range c {
+		if x == a {
+			return true
+		}
+	}
+	return false
+}
+
+// smallCycles lists every simple cycle of at most MaxAromaticRing
+// candidate atoms joined by ring bonds, each once, as atom sequences
+// starting at its lowest atom.
+func (m *Molecule) smallCycles(elec []int8, ring []bool) [][]int {
+	var out [][]int
+	path := make([]int, 0, MaxAromaticRing)
+	on := make([]bool, len(m.Atoms))
+	budget := cycleBudget
+	var dfs func(start, at int)
+	dfs = func(start, at int) {
+		for _, e := range m.adj[at] {
+			budget--
+			if budget < 0 {
+				return
+			}
+			if !ring[e.Bond] || elec[e.Atom] < 0 {
+				continue
+			}
+			if e.Atom == start && len(path) >= 3 {
+				if path[1] < path[len(path)-1] {
+					out = append(out, append([]int(nil), path...))
+				}
+				continue
+			}
+			if e.Atom <= start || on[e.Atom] || len(path) >= MaxAromaticRing {
+				continue
+			}
+			on[e.Atom] = true
+			path = append(path, e.Atom)
+			dfs(start, e.Atom)
+			path = path[:len(path)-1]
+			on[e.Atom] = false
+		}
+	}
+	for s := range m.Atoms {
+		if elec[s] < 0 {
+			continue
+		}
+		path = append(path[:0], s)
+		on[s] = true
+		dfs(s, s)
+		on[s] = false
+	}
+	return out
+}

@@ -1,0 +1,167 @@
+package analyze
+
+import (
+	"fmt"
+	"sort"
+
+	"walden/analyze/outcome"
+	"walden/grammar/notation"
+)
+
+// runOutcome is the outcome engine's entry point (a variable so that
+// tests can count or replace it).
+var runOutcome = func(st *outcome.Step) *outcome.Outcome {
+	o := outcome.Predict(*st)
+	return &o
+}
+
+// predict runs the outcome engine on a resolved step and converts its
+// answer into the report's terms.
+func (e *Engine) predict(in *stepInput) *prediction {
+	if runOutcome == nil {
+		return &prediction{notAnalysed: "the outcome rules are not available in this build", reacting: -1, mechanism: "none"}
+	}
+	st := &outcome.Step{Substrate: in.substrate.mol, Reflux: in.reflux}
+	if in.hasTemp {
+		t := in.tempC
+		st.TempC = &t
+	}
+	for _, r := range in.reagents {
+		st.Reagents = append(st.Reagents, outcome.Reactant{Mol: r.mol, Entry: r.reagent, Equiv: equivalents(r.term)})
+	}
+	solventIndex := map[int]int{} // outcome's index → ours
+	for i, s := range in.solvents {
+		if s.solvent == nil {
+			continue
+		}
+		solventIndex[len(st.Solvents)] = i
+		st.Solvents = append(st.Solvents, outcome.SolventShare{Solvent: s.solvent})
+	}
+	o := runOutcome(st)
+	if o == nil {
+		return &prediction{notAnalysed: "the outcome rules gave no answer", reacting: -1, mechanism: "none"}
+	}
+	return fromOutcome(o, solventIndex)
+}
+
+// fromOutcome converts the outcome engine's answer.
+func fromOutcome(o *outcome.Outcome, solventIndex map[int]int) *prediction {
+	p := &prediction{notAnalysed: o.NotAnalysed, mechanism: string(o.Mechanism), reacting: o.Site, leaving: o.Leaving, roles: map[int]string{}}
+	for _, s := range o.Scores {
+		if s.Possible && s.Fraction > 0 {
+			p.distribution = append(p.distribution, share{string(s.Pathway), s.Fraction})
+		}
+	}
+	sort.SliceStable(p.distribution, func(i, j int) bool { return p.distribution[i].fraction > p.distribution[j].fraction })
+	for _, x := range o.Products {
+		smi := x.SMILES
+		if smi == "" {
+			smi = canonical(x.Mol)
+		}
+		pr := product{smiles: smi, mol: x.Mol, fraction: x.Fraction, major: x.Role == outcome.Major, mechanism: string(x.Pathway), note: x.Note}
+		if pr.major {
+			p.products = append([]product{pr}, p.products...)
+		} else {
+			p.products = append(p.products, pr)
+		}
+	}
+	for _, r := range o.Reasons {
+		p.reasons = append(p.reasons, r.Text)
+	}
+	for _, c := range o.Stereo {
+		p.stereo = append(p.stereo, stereoChange{atom: c.Atom, before: c.Before, after: c.After, outcome: string(c.Change), letterChanged: c.LetterChanged})
+	}
+	if o.Site >= 0 {
+		p.roles[o.Site] = "the reacting carbon: it bears the leaving group"
+	}
+	for _, a := range o.Leaving {
+		if _, ok := p.roles[a]; !ok {
+			p.roles[a] = "part of the leaving group"
+		}
+	}
+	for _, f := range o.Findings {
+		p.findings = append(p.findings, fromFinding(f, solventIndex))
+	}
+	return p
+}
+
+// fromFinding places a finding by its parties: the substrate atoms named
+// first, else the reagent, the solvent or the temperature; the other
+// parties become related information.
+func fromFinding(f outcome.Finding, solventIndex map[int]int) chemFinding {
+	cf := chemFinding{code: fmt.Sprint(f.Code), severity: Severity(f.Severity), message: f.Message, atoms: f.Parties.Atoms, on: partyNone, index: -1}
+	var parties []partyRef
+	if len(f.Parties.Atoms) > 0 {
+		parties = append(parties, partyRef{on: partySubstrate, why: "the substrate"})
+	}
+	if f.Parties.Reactant >= 0 {
+		parties = append(parties, partyRef{on: partyReagent, index: f.Parties.Reactant})
+	}
+	if f.Parties.Solvent >= 0 {
+		if i, ok := solventIndex[f.Parties.Solvent]; ok {
+			parties = append(parties, partyRef{on: partySolvent, index: i})
+		}
+	}
+	if f.Parties.Temp {
+		parties = append(parties, partyRef{on: partyTemperature})
+	}
+	if len(parties) > 0 {
+		cf.on, cf.index = parties[0].on, parties[0].index
+		cf.also = parties[1:]
+	}
+	for _, x := range f.Fixes {
+		cf.fixes = append(cf.fixes, fromFix(x, f.Parties, solventIndex)...)
+	}
+	return cf
+}
+
+// fromFix turns a fix in chemical terms into one chemFix per choice.
+func fromFix(x outcome.Fix, ps outcome.Parties, solventIndex map[int]int) []chemFix {
+	var out []chemFix
+	title := func(n string) string {
+		if x.Title != "" && len(x.Names) <= 1 {
+			return x.Title
+		}
+		return fmt.Sprintf("%s: %s", x.Title, n)
+	}
+	switch x.Kind {
+	case outcome.ReplaceSolvent:
+		idx := 0
+		if i, ok := solventIndex[ps.Solvent]; ok {
+			idx = i
+		}
+		for _, n := range x.Names {
+			out = append(out, chemFix{kind: fixSwapSolvent, title: title("use " + n), text: n, index: idx})
+		}
+	case outcome.ReplaceReagent:
+		for _, n := range x.Names {
+			out = append(out, chemFix{kind: fixReplaceReagent, title: title("use " + n), text: n, index: ps.Reactant})
+		}
+	case outcome.ChangeTemp:
+		if len(x.Names) > 0 {
+			out = append(out, chemFix{kind: fixTemperature, title: title(x.Names[0]), text: x.Names[0]})
+		}
+	case outcome.InsertStep:
+		for _, n := range x.Names {
+			t := "activate first with " + n
+			if x.Config != "" {
+				t += " (" + x.Config + " the configuration)"
+			}
+			out = append(out, chemFix{kind: fixActivate, title: title(t), text: n})
+		}
+	}
+	return out
+}
+
+// equivalents reads the equivalents written on a term, 0 when none.
+func equivalents(t *notation.Term) float64 {
+	if t == nil {
+		return 0
+	}
+	for _, q := range t.Quantities {
+		if q.Kind == notation.Equivalents && q.HasValue {
+			return q.Value
+		}
+	}
+	return 0
+}

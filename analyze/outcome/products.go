@@ -1,0 +1,356 @@
+package outcome
+
+import (
+	"math"
+	"sort"
+
+	"walden/analyze/molecule"
+	"walden/analyze/perceive"
+	"walden/analyze/reagents"
+	"walden/analyze/smiles"
+)
+
+// minShare is the smallest pathway share whose product is listed.
+const minShare = 0.02
+
+// products generates the products of every pathway with a share worth
+// listing, and marks the largest one major.
+func products(o *Outcome, st Step, c *scoring) {
+	var out []Product
+	for _, s := range o.Scores {
+		if !s.Possible || s.Fraction < minShare {
+			continue
+		}
+		switch s.Pathway {
+		case SN2:
+			if p := substitute(st.Substrate, c, false); p != nil {
+				p.Fraction = s.Fraction
+				out = append(out, *p)
+			}
+		case SN1:
+			if p := substitute(st.Substrate, c, true); p != nil {
+				p.Fraction = s.Fraction
+				out = append(out, *p)
+			}
+		case E2, E1:
+			for _, p := range eliminate(st.Substrate, c, s.Pathway) {
+				p.Fraction *= s.Fraction
+				out = append(out, p)
+			}
+		}
+	}
+	sort.SliceStable(out, func(i, j int) bool { return out[i].Fraction > out[j].Fraction })
+	for i := range out {
+		out[i].Role = Minor
+		if i == 0 {
+			out[i].Role = Major
+		}
+		out[i].SMILES = smiles.Canonical(out[i].Mol)
+	}
+	// The same product by two pathways is listed once.
+	seen := map[string]int{}
+	kept := out[:0]
+	for _, p := range out {
+		if j, ok := seen[p.SMILES]; ok && p.SMILES != "" {
+			kept[j].Fraction += p.Fraction
+			continue
+		}
+		seen[p.SMILES] = len(kept)
+		kept = append(kept, p)
+	}
+	o.Products = kept
+}
+
+// substitute replaces the leaving group by the nucleophile: with
+// geometric inversion (SN2) or with the configuration lost at the cation
+// centre and any 1,2-shift applied (SN1).
+func substitute(sub *molecule.Molecule, c *scoring, ionised bool) *Product {
+	if c.nu == nil || c.nuMol == nil {
+		return nil
+	}
+	s := c.site
+	lg := s.Leaving
+	drop := map[int]bool{}
+	for _, a := range lg.Atoms {
+		drop[a] = true
+	}
+	centre := s.Carbon
+	skip := map[int]bool{s.Carbon: true}
+	if ionised {
+		centre = c.cation.centre
+		skip[centre] = true
+	}
+	b := newBuilder(sub, drop, skip, c.nuMol, c.nu.Atom)
+	m := b.out
+	if lg.InRing {
+		// The group stays on the molecule: cut the bond and give the
+		// oxygen (or nitrogen) back its hydrogen after work-up.
+		cutBond(b, s.Carbon, lg.Attach)
+		at := &m.Atoms[b.subMap[lg.Attach]]
+		if at.Charge > 0 {
+			at.Charge = 0
+		} else {
+			at.ImplicitH++
+		}
+	}
+	if ionised && c.cation.shift != "" {
+		// 1,2-shift: the migrating group moves from the new centre to the
+		// old one.
+		if c.cation.migrant < 0 {
+			takeProton(m, b.subMap[centre])
+			m.Atoms[b.subMap[s.Carbon]].ImplicitH++
+		} else {
+			cutBond(b, centre, c.cation.migrant)
+			b.attach(b.subMap[s.Carbon], b.subMap[c.cation.migrant])
+		}
+	}
+	nuAt := b.nuMap[c.nu.Atom]
+	b.attach(b.subMap[centre], nuAt)
+	if c.nu.Deprotonated {
+		takeProton(m, nuAt)
+	} else {
+		bondAfterAttack(m, nuAt, c.nuMol.Atoms[c.nu.Atom].Charge)
+	}
+	p := &Product{Mol: m, Pathway: SN2}
+	if ionised {
+		p.Pathway = SN1
+		if c.cation.shift != "" {
+			p.Note = "rearranged by a 1,2-" + c.cation.shift + " shift"
+		}
+		return p
+	}
+	if degenerate(c) {
+		p.Note = "the nucleophile is the leaving group: each exchange inverts, so the carbon racemises"
+		return p
+	}
+	// Geometric inversion: the nucleophile takes the leaving group's
+	// place among the references and the winding reverses.
+	if ti := perceive.TetrahedralAt(sub, s.Carbon); ti >= 0 {
+		t := sub.Tetrahedral[ti]
+		nt := molecule.Tetrahedral{Centre: b.subMap[s.Carbon], Winding: t.Winding.Invert()}
+		ok := true
+		for k, r := range t.Refs {
+			switch {
+			case r == lg.Attach:
+				nt.Refs[k] = nuAt
+			case r == molecule.Implicit:
+				nt.Refs[k] = r
+			case b.subMap[r] >= 0:
+				nt.Refs[k] = b.subMap[r]
+			default:
+				ok = false
+			}
+		}
+		if ok {
+			m.Tetrahedral = append(m.Tetrahedral, nt)
+		}
+	}
+	return p
+}
+
+// degenerate: the nucleophile is the same halide as the leaving group.
+func degenerate(c *scoring) bool {
+	k := map[perceive.LeavingKind]perceive.NucKind{perceive.Iodide: "iodide", perceive.Bromide: "bromide", perceive.Chloride: "chloride", perceive.Fluoride: "fluoride"}[c.site.Leaving.Kind]
+	return k != "" && c.nu != nil && c.nu.Kind == k
+}
+
+// cutBond removes the bond between substrate atoms a and b from the
+// product being built (the graph has no removal, so it is rebuilt).
+func cutBond(b *builder, a, c int) {
+	pa, pc := b.subMap[a], b.subMap[c]
+	old := b.out
+	m := &molecule.Molecule{}
+	for _, at := range old.Atoms {
+		m.AddAtom(at)
+	}
+	for _, bd := range old.Bonds {
+		if (bd.A == pa && bd.B == pc) || (bd.A == pc && bd.B == pa) {
+			continue
+		}
+		m.AddBond(bd)
+	}
+	for _, t := range old.Tetrahedral {
+		if t.Centre == pa || t.Centre == pc {
+			continue
+		}
+		m.Tetrahedral = append(m.Tetrahedral, t)
+	}
+	m.CisTrans = old.CisTrans
+	b.out = m
+}
+
+// option is one way to eliminate: the β-carbon and which hydrogen.
+type option struct {
+	beta   perceive.Beta
+	weight float64
+}
+
+// eliminate forms the alkenes of an E2 or E1 step with their shares.
+// E2 uses only β-hydrogens that can be anti-periplanar; the geometry is
+// read from the configurations when both carbons are defined and the
+// β-carbon has one hydrogen, otherwise the more stable E isomer leads.
+func eliminate(sub *molecule.Molecule, c *scoring, p Mechanism) []Product {
+	s := c.site
+	hofmann := p == E2 && hofmannConditions(c)
+	var opts []option
+	for _, b := range s.Beta {
+		if b.H == 0 || (p == E2 && b.AntiH == 0) {
+			continue
+		}
+		h := b.H
+		if p == E2 && b.AntiH > 0 {
+			h = b.AntiH
+		}
+		wgt := math.Log10(float64(h))
+		if hofmann {
+			wgt -= w("bulky-hofmann") * float64(b.Substituents)
+		} else {
+			wgt += w("zaitsev-per-carbon") * float64(b.Substituents)
+			if b.Conjugated {
+				wgt += w("conjugation")
+			}
+		}
+		opts = append(opts, option{b, wgt})
+	}
+	if len(opts) == 0 {
+		return nil
+	}
+	// Equivalent β-carbons give the same alkene.
+	sum := 0.0
+	for _, o := range opts {
+		sum += math.Pow(10, o.weight)
+	}
+	var out []Product
+	for _, o := range opts {
+		share := math.Pow(10, o.weight) / sum
+		for _, g := range alkenes(sub, c, o.beta, p) {
+			g.Fraction *= share
+			out = append(out, g)
+		}
+	}
+	return out
+}
+
+// hofmannConditions: bulky bases, fluoride and onium leaving groups give
+// the less substituted alkene (Brown, Moritani, Okamoto 1956; Bartsch &
+// Bunnett J. Am. Chem. Soc. 1968, 90, 408; Hofmann's rule).
+func hofmannConditions(c *scoring) bool {
+	if c.base != nil && c.base.Bulk >= reagents.Hindered {
+		return true
+	}
+	switch c.site.Leaving.Kind {
+	case perceive.Fluoride, perceive.Ammonium, perceive.Sulfonium:
+		return true
+	}
+	return false
+}
+
+// alkenes builds the alkene(s) from removing a hydrogen of beta.
+func alkenes(sub *molecule.Molecule, c *scoring, beta perceive.Beta, p Mechanism) []Product {
+	s := c.site
+	a, bt := s.Carbon, beta.Atom
+	drop := map[int]bool{}
+	for _, x := range s.Leaving.Atoms {
+		drop[x] = true
+	}
+	hs := perceive.HydrogenRefs(sub, bt)
+	removeH := molecule.Implicit
+	if len(hs) > 0 && hs[0] >= 0 {
+		removeH = hs[0]
+		drop[removeH] = true
+	}
+	b := newBuilder(sub, drop, map[int]bool{a: true, bt: true}, nil, 0)
+	m := b.out
+	if removeH == molecule.Implicit {
+		takeProton(m, b.subMap[bt])
+	}
+	if s.Leaving.InRing {
+		cutBond(b, a, s.Leaving.Attach)
+		m = b.out
+		m.Atoms[b.subMap[s.Leaving.Attach]].ImplicitH++
+	}
+	bi := m.BondBetween(b.subMap[a], b.subMap[bt])
+	m.Bonds[bi].Order = 2
+	note := ""
+	if c.sub.Rings.Bond[sub.BondBetween(a, bt)] && c.sub.Rings.SmallestRingBond(a, bt) < 8 {
+		return []Product{{Mol: m, Pathway: p, Fraction: 1}}
+	}
+	ra := heavySub(sub, a, bt, s.Leaving.Attach)
+	rb := heavySub(sub, bt, a, removeH)
+	if len(ra) == 0 || len(rb) == 0 || !distinct(sub, c.sub.Sym, a, bt, s.Leaving.Attach) || !distinct(sub, c.sub.Sym, bt, a, removeH) {
+		return []Product{{Mol: m, Pathway: p, Fraction: 1}}
+	}
+	xa, xb := ra[0], rb[0]
+	// Stereospecific: E2, one hydrogen on the β-carbon, both configured.
+	if p == E2 && len(hs) == 1 && perceive.TetrahedralAt(sub, a) >= 0 && perceive.TetrahedralAt(sub, bt) >= 0 {
+		if cis, ok := perceive.AntiCis(sub, a, s.Leaving.Attach, xa, bt, hs[0], xb); ok {
+			m.CisTrans = append(m.CisTrans, molecule.CisTrans{Ends: [2]int{b.subMap[a], b.subMap[bt]}, Refs: [2]int{b.subMap[xa], b.subMap[xb]}, Config: cfg(cis)})
+			return []Product{{Mol: m, Pathway: p, Fraction: 1, Note: "anti-periplanar elimination fixes the geometry"}}
+		}
+	}
+	// Stereoselective: larger groups trans.
+	bigA := bigger(sub, a, ra, bt)
+	bigB := bigger(sub, bt, rb, a)
+	e := m.Clone()
+	e.CisTrans = append(e.CisTrans, molecule.CisTrans{Ends: [2]int{b.subMap[a], b.subMap[bt]}, Refs: [2]int{b.subMap[bigA], b.subMap[bigB]}, Config: molecule.Opposite})
+	z := m.Clone()
+	z.CisTrans = append(z.CisTrans, molecule.CisTrans{Ends: [2]int{b.subMap[a], b.subMap[bt]}, Refs: [2]int{b.subMap[bigA], b.subMap[bigB]}, Config: molecule.Together})
+	fe := math.Pow(10, w("e-over-z"))
+	_ = note
+	return []Product{{Mol: e, Pathway: p, Fraction: fe / (fe + 1), Note: "larger groups trans"}, {Mol: z, Pathway: p, Fraction: 1 / (fe + 1)}}
+}
+
+func cfg(cis bool) molecule.Config {
+	if cis {
+		return molecule.Together
+	}
+	return molecule.Opposite
+}
+
+// heavySub lists the non-hydrogen neighbours of x other than the two given.
+func heavySub(m *molecule.Molecule, x, not1, not2 int) []int {
+	var out []int
+	for _, e := range m.Edges(x) {
+		if e.Atom == not1 || e.Atom == not2 || m.Atoms[e.Atom].Element == molecule.H {
+			continue
+		}
+		out = append(out, e.Atom)
+	}
+	return out
+}
+
+// distinct reports whether the two substituents left on alkene end x
+// (besides the other end and the departing atom) differ.
+func distinct(m *molecule.Molecule, sym []uint64, x, other, gone int) bool {
+	var keys []uint64
+	for _, e := range m.Edges(x) {
+		if e.Atom == other || e.Atom == gone {
+			continue
+		}
+		if m.Atoms[e.Atom].Element == molecule.H {
+			keys = append(keys, 0)
+		} else {
+			keys = append(keys, sym[e.Atom])
+		}
+	}
+	h := m.Atoms[x].ImplicitH
+	if gone == molecule.Implicit {
+		h--
+	}
+	for range h {
+		keys = append(keys, 0)
+	}
+	return len(keys) == 2 && keys[0] != keys[1]
+}
+
+// bigger returns the larger of the heavy substituents (a hydrogen being
+// smallest), by branch size.
+func bigger(m *molecule.Molecule, x int, subs []int, other int) int {
+	best, size := subs[0], -1
+	for _, s := range subs {
+		if n := perceive.BranchSize(m, x, s, 64); n > size {
+			best, size = s, n
+		}
+	}
+	return best
+}

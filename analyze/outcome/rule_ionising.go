@@ -1,0 +1,17 @@
+package outcome
+
+// ionisingPowerRule: ionisation creates charge, so polar protic solvents
+// speed it enormously (Hughes–Ingold); the Grunwald–Winstein Y value
+// measures it (log10 rate of tert-butyl chloride relative to 80% ethanol).
+// Hughes, E. D.; Ingold, C. K. J. Chem. Soc. 1935, 244; Grunwald, E.;
+// Winstein, S. J. Am. Chem. Soc. 1948, 70, 846.
+var ionisingPowerRule = Rule{
+	Name:   "ionising-power",
+	Effect: "polar protic solvents speed ionisation (Hughes–Ingold; Grunwald–Winstein Y)",
+	Source: "Hughes & Ingold J. Chem. Soc. 1935, 244; Grunwald & Winstein J. Am. Chem. Soc. 1948, 70, 846",
+	Apply: func(c *scoring) {
+		c.add(SN1, c.md.Y)
+		c.add(E1, c.md.Y)
+		c.say("ionising power of %s: Y = %+.1f", c.md.Name, c.md.Y)
+	},
+}

@@ -1,0 +1,19 @@
+package outcome
+
+// leavingGroupRule: better leaving groups (weaker conjugate bases) speed
+// every pathway; ionisation is far more sensitive to them than SN2.
+// Noyce, D. S.; Virgilio, J. A. J. Org. Chem. 1972, 37, 2643 (solvolysis);
+// Solomons & Fryhle, Organic Chemistry, leaving-group table (SN2).
+var leavingGroupRule = Rule{
+	Name:   "leaving-group",
+	Effect: "leaving-group ability (I > Br > Cl >> F; sulfonates ≈ I)",
+	Source: "Noyce & Virgilio J. Org. Chem. 1972, 37, 2643; Solomons & Fryhle leaving-group table",
+	Apply: func(c *scoring) {
+		d := c.site.Leaving.Data
+		c.add(SN2, d.SN2)
+		c.add(E2, d.SN2)
+		c.add(SN1, d.Solvolysis)
+		c.add(E1, d.Solvolysis)
+		c.say("leaving group %s (%s): %+.1f for SN2/E2 and %+.1f for ionisation (log10, chloride = 0)", d.Kind, d.Name, d.SN2, d.Solvolysis)
+	},
+}

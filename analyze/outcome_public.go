@@ -1,0 +1,55 @@
+package analyze
+
+// Prediction is the outcome of one step as walden predict and the server
+// show it: the mechanism, the products, what happened at each stereocentre
+// of the substrate's reacting carbon, and the reasons.
+type Prediction struct {
+	Mechanism   string // "SN2", "SN1", "E2", "E1" or "none"
+	NotAnalysed string // why the rules cannot decide; "" when they can
+	Products    []PredictedProduct
+	Stereo      []StereoChange
+	Reasons     []string
+	// Distribution is each pathway's predicted share, largest first.
+	Distribution []PathwayShare
+	// Through is the configuration through the plan up to and including
+	// this step, e.g. ["k1 retained (S)", "k2 inverted (R)"].
+	Through []string
+}
+
+// PredictedProduct is one product with its predicted share.
+type PredictedProduct struct {
+	SMILES    string // canonical, isomeric
+	Fraction  float64
+	Major     bool
+	Mechanism string
+}
+
+// StereoChange is what happened at one stereocentre of the substrate.
+type StereoChange struct {
+	Atom          int    // 0-based index in the substrate (SMILES input order)
+	Before, After string // CIP letters; "" when the centre has none
+	Outcome       string // "inverted", "retained" or "lost"
+	LetterChanged bool
+}
+
+// PathwayShare is one mechanism's share of the outcome.
+type PathwayShare struct {
+	Mechanism string
+	Fraction  float64
+}
+
+// public converts the package's prediction into the exported form.
+func (p *prediction) public(through []string) *Prediction {
+	out := &Prediction{Mechanism: orNone(p.mechanism), NotAnalysed: p.notAnalysed, Reasons: p.reasons}
+	for _, x := range p.products {
+		out.Products = append(out.Products, PredictedProduct{SMILES: x.smiles, Fraction: x.fraction, Major: x.major, Mechanism: x.mechanism})
+	}
+	for _, c := range p.stereo {
+		out.Stereo = append(out.Stereo, StereoChange{Atom: c.atom, Before: c.before, After: c.after, Outcome: c.outcome, LetterChanged: c.letterChanged})
+	}
+	for _, s := range p.distribution {
+		out.Distribution = append(out.Distribution, PathwayShare{s.mechanism, s.fraction})
+	}
+	out.Through = through
+	return out
+}

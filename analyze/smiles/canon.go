@@ -1,0 +1,441 @@
+package smiles
+
+import (
+	"walden/analyze/molecule"
+)
+
+// Canonical returns the canonical SMILES of m: the same string for the
+// same structure whatever the atom order, ring-closure numbering, or
+// aromatic versus Kekulé input, stereo included.
+//
+// Method: atoms get invariants (element, isotope, charge, hydrogens,
+// degree, perceived aromaticity, atom class) refined by neighbour ranks
+// and bond types until stable (iterative partition refinement, as in
+// Weininger, Weininger and Weininger, J. Chem. Inf. Comput. Sci. 1989, 29,
+// 97, with exact sorting instead of prime products). Stereo enters as
+// invariants too: the parity of each centre, double bond and allene
+// relative to the current ranks once its references are distinguished.
+// Remaining ties are broken by choosing each member of the first tied
+// class that touches a stereo element in turn and keeping the smallest
+// string (at most SearchBudget partial orders); ties that touch no stereo
+// element are between equivalent atoms and broken by the first member.
+func Canonical(m *molecule.Molecule) string {
+	if m == nil || len(m.Atoms) == 0 {
+		return ""
+	}
+	c := newCanon(m)
+	return c.run()
+}
+
+// SearchBudget bounds the tie-breaking search of Canonical, in atoms
+// ranked (partial orders tried times atoms). Molecules needing more
+// (highly symmetric ones with many stereo marks) still get a valid
+// SMILES, but it may depend on the input order: a documented limit.
+const SearchBudget = 400_000
+
+type canon struct {
+	m       *molecule.Molecule
+	w       *writer
+	inv     []uint64
+	relev   []bool
+	nbStart []int32 // neighbour list offsets into nbAtom/nbCode
+	nbAtom  []int32
+	nbCode  []int32
+	stereo  []int32
+	sig     []int64
+	sigOff  []int32
+	order   []int32
+	tmp     []int32
+	best    string
+	found   bool
+	budget  int
+}
+
+func newCanon(m *molecule.Molecule) *canon {
+	n := len(m.Atoms)
+	c := &canon{m: m, budget: SearchBudget}
+	c.w = newWriter(m, true)
+	c.inv = make([]uint64, n)
+	c.relev = make([]bool, n)
+	c.nbStart = make([]int32, n+1)
+	for i := range n {
+		a := m.Atoms[i]
+		arom := uint64(0)
+		if c.w.aromatic && c.w.arom[i] {
+			arom = 1
+		}
+		iso := uint64(min(max(a.Isotope, 0), 4095))
+		q := uint64(min(max(a.Charge+64, 0), 127))
+		h := uint64(min(max(a.ImplicitH, 0), 31))
+		d := uint64(min(m.Degree(i), 31))
+		cls := uint64(min(max(a.Class, 0), 1<<26-1))
+		c.inv[i] = d<<58 | uint64(a.Element&127)<<51 | iso<<39 | q<<32 | h<<27 | arom<<26 | cls
+		c.nbStart[i+1] = c.nbStart[i] + int32(m.Degree(i))
+	}
+	c.nbAtom = make([]int32, c.nbStart[n])
+	c.nbCode = make([]int32, c.nbStart[n])
+	for i := range n {
+		k := c.nbStart[i]
+		for _, e := range m.Edges(i) {
+			c.nbAtom[k] = int32(e.Atom)
+			code := int32(m.Bonds[e.Bond].Order)
+			if c.w.aromatic && c.w.aromB[e.Bond] {
+				code = 5
+			}
+			c.nbCode[k] = code
+			k++
+		}
+	}
+	mark := func(a int) {
+		if a >= 0 && a < n {
+			c.relev[a] = true
+		}
+	}
+	for _, t := range m.Tetrahedral {
+		mark(t.Centre)
+		for _, r := range t.Refs {
+			mark(r)
+		}
+	}
+	for _, ct := range m.CisTrans {
+		for s := range 2 {
+			mark(ct.Ends[s])
+			if e := ct.Ends[s]; e >= 0 && e < n {
+				for _, ed := range m.Edges(e) {
+					mark(ed.Atom)
+				}
+			}
+		}
+	}
+	for _, ax := range m.Axial {
+		mark(ax.Centre)
+		mark(ax.Ends[0])
+		mark(ax.Ends[1])
+		for _, r := range ax.Refs {
+			mark(r)
+		}
+	}
+	c.stereo = make([]int32, n)
+	c.sig = make([]int64, 0, 2*n+len(c.nbAtom))
+	c.sigOff = make([]int32, n+1)
+	c.order = make([]int32, n)
+	c.tmp = make([]int32, n)
+	return c
+}
+
+func (c *canon) run() string {
+	n := len(c.m.Atoms)
+	rank := make([]int32, n)
+	// Initial ranks from the invariants.
+	for i := range c.order {
+		c.order[i] = int32(i)
+	}
+	sortIdx(c.order, func(a, b int32) int {
+		switch {
+		case c.inv[a] < c.inv[b]:
+			return -1
+		case c.inv[a] > c.inv[b]:
+			return 1
+		}
+		return 0
+	})
+	for k, a := range c.order {
+		if k > 0 && c.inv[a] == c.inv[c.order[k-1]] {
+			rank[a] = rank[c.order[k-1]]
+		} else {
+			rank[a] = int32(k)
+		}
+	}
+	c.search(rank)
+	return c.best
+}
+
+// search refines rank, then either writes the leaf or breaks a tie.
+func (c *canon) search(rank []int32) {
+	c.refine(rank)
+	for {
+		cls, size := c.tiedClass(rank, true)
+		if cls < 0 {
+			break
+		}
+		if size > 0 && c.budget > 0 {
+			// Try each member of the stereo-relevant tied class.
+			members := make([]int32, 0, size)
+			for i, r := range rank {
+				if r == cls {
+					members = append(members, int32(i))
+				}
+			}
+			for _, x := range members {
+				if c.budget <= 0 && c.found {
+					break
+				}
+				c.budget -= len(rank)
+				next := append([]int32(nil), rank...)
+				breakTie(next, cls, x)
+				c.search(next)
+			}
+			return
+		}
+		// Out of budget: break deterministically and go on.
+		c.breakFirst(rank, cls)
+	}
+	for {
+		cls, _ := c.tiedClass(rank, false)
+		if cls < 0 {
+			break
+		}
+		c.breakFirst(rank, cls)
+	}
+	s := c.w.write(rank, nil)
+	if !c.found || s < c.best {
+		c.best, c.found = s, true
+	}
+}
+
+func (c *canon) breakFirst(rank []int32, cls int32) {
+	for i, r := range rank {
+		if r == cls {
+			breakTie(rank, cls, int32(i))
+			break
+		}
+	}
+	c.refine(rank)
+}
+
+// breakTie keeps atom x at rank cls and moves the rest of its class one
+// rank up.
+func breakTie(rank []int32, cls, x int32) {
+	for i, r := range rank {
+		if r == cls && int32(i) != x {
+			rank[i] = cls + 1
+		}
+	}
+}
+
+// tiedClass returns the lowest rank shared by several atoms (only among
+// stereo-relevant atoms when relevant is set) and the class size; -1
+// when there is none.
+func (c *canon) tiedClass(rank []int32, relevant bool) (int32, int) {
+	n := len(rank)
+	count := c.tmp
+	clear(count)
+	hasRel := c.order // reuse as flags: 1 when the class has a relevant atom
+	clear(hasRel)
+	for i, r := range rank {
+		count[r]++
+		if c.relev[i] {
+			hasRel[r] = 1
+		}
+	}
+	for r := range n {
+		if count[r] > 1 && (!relevant || hasRel[r] == 1) {
+			return int32(r), int(count[r])
+		}
+	}
+	return -1, 0
+}
+
+// refine splits rank classes by neighbour ranks, bond types and stereo
+// parities until the number of classes stops growing.
+func (c *canon) refine(rank []int32) {
+	n := len(rank)
+	classes := countClasses(rank, c.tmp)
+	for {
+		c.stereoCodes(rank)
+		c.sig = c.sig[:0]
+		for i := range n {
+			c.sigOff[i] = int32(len(c.sig))
+			c.sig = append(c.sig, int64(rank[i]), int64(c.stereo[i]))
+			start := len(c.sig)
+			for k := c.nbStart[i]; k < c.nbStart[i+1]; k++ {
+				c.sig = append(c.sig, int64(rank[c.nbAtom[k]])<<3|int64(c.nbCode[k]))
+			}
+			s := c.sig[start:]
+			for x := 1; x < len(s); x++ {
+				for y := x; y > 0 && s[y] < s[y-1]; y-- {
+					s[y], s[y-1] = s[y-1], s[y]
+				}
+			}
+		}
+		c.sigOff[n] = int32(len(c.sig))
+		for i := range c.order {
+			c.order[i] = int32(i)
+		}
+		sortIdx(c.order, c.cmpSig)
+		next := c.tmp
+		for k, a := range c.order {
+			if k > 0 && c.cmpSig(a, c.order[k-1]) == 0 {
+				next[a] = next[c.order[k-1]]
+			} else {
+				next[a] = int32(k)
+			}
+		}
+		copy(rank, next)
+		nc := countClasses(rank, c.tmp)
+		if nc == classes {
+			return
+		}
+		classes = nc
+	}
+}
+
+func (c *canon) cmpSig(a, b int32) int {
+	x := c.sig[c.sigOff[a]:c.sigOff[a+1]]
+	y := c.sig[c.sigOff[b]:c.sigOff[b+1]]
+	for i := 0; i < len(x) && i < len(y); i++ {
+		if x[i] != y[i] {
+			if x[i] < y[i] {
+				return -1
+			}
+			return 1
+		}
+	}
+	return len(x) - len(y)
+}
+
+func countClasses(rank []int32, seen []int32) int {
+	clear(seen)
+	n := 0
+	for _, r := range rank {
+		if seen[r] == 0 {
+			seen[r] = 1
+			n++
+		}
+	}
+	return n
+}
+
+// sortIdx sorts idx by cmp (shell sort: allocation-free and fast enough
+// for molecules; stability is not needed as ties are equal keys).
+func sortIdx(idx []int32, cmp func(a, b int32) int) {
+	n := len(idx)
+	gap := 1
+	for gap < n/3 {
+		gap = 3*gap + 1
+	}
+	for ; gap > 0; gap /= 3 {
+		for i := gap; i < n; i++ {
+			for j := i; j >= gap && cmp(idx[j], idx[j-gap]) < 0; j -= gap {
+				idx[j], idx[j-gap] = idx[j-gap], idx[j]
+			}
+		}
+	}
+}
+
+// stereoCodes gives each stereo atom a code from its configuration read
+// against the current ranks: 1 or 2 for the two senses, 3 while its
+// references are not yet told apart.
+func (c *canon) stereoCodes(rank []int32) {
+	m := c.m
+	n := int32(len(rank))
+	clear(c.stereo)
+	rk := func(a int) int32 {
+		if a < 0 || a >= int(n) {
+			return -1
+		}
+		return rank[a]
+	}
+	for _, t := range m.Tetrahedral {
+		if t.Centre < 0 || t.Centre >= int(n) {
+			continue
+		}
+		var keys [4]int32
+		for k, r := range t.Refs {
+			keys[k] = rk(r)
+		}
+		c.stereo[t.Centre] = c.stereo[t.Centre]*4 + parityCode(t.Winding, keys)
+	}
+	for _, ax := range m.Axial {
+		if ax.Centre < 0 || ax.Centre >= int(n) {
+			continue
+		}
+		var keys [4]int32
+		for k, r := range ax.Refs {
+			keys[k] = rk(r)
+		}
+		// The two ends may themselves be told apart only by rank: read
+		// the refs with the lower-ranked end first.
+		w := ax.Winding
+		if rk(ax.Ends[0]) > rk(ax.Ends[1]) {
+			keys = [4]int32{keys[2], keys[3], keys[0], keys[1]}
+			// Swapping the two pairs is an even permutation.
+		}
+		code := int32(3)
+		if keys[0] != keys[1] && keys[2] != keys[3] {
+			// Pairs ordered within each end; each swap inverts.
+			if keys[0] > keys[1] {
+				w = w.Invert()
+			}
+			if keys[2] > keys[3] {
+				w = w.Invert()
+			}
+			code = 1
+			if w == molecule.Clockwise {
+				code = 2
+			}
+		}
+		c.stereo[ax.Centre] = c.stereo[ax.Centre]*4 + code
+	}
+	for _, ct := range m.CisTrans {
+		e0, e1 := ct.Ends[0], ct.Ends[1]
+		if e0 < 0 || e0 >= int(n) || e1 < 0 || e1 >= int(n) {
+			continue
+		}
+		code := int32(3)
+		f0, ok0 := c.flipFor(e0, ct.Refs[0], rank)
+		f1, ok1 := c.flipFor(e1, ct.Refs[1], rank)
+		if ok0 && ok1 {
+			cfg := int(ct.Config) * f0 * f1
+			code = 1
+			if cfg < 0 {
+				code = 2
+			}
+		}
+		c.stereo[e0] = c.stereo[e0]*4 + code
+		c.stereo[e1] = c.stereo[e1]*4 + code
+	}
+}
+
+// flipFor returns -1 when ref is not the highest-ranked single-bonded
+// neighbour of end (the configuration then reads inverted against it),
+// and false when two such neighbours tie.
+func (c *canon) flipFor(end, ref int, rank []int32) (int, bool) {
+	m := c.m
+	best, bestRank, tie := -1, int32(-1), false
+	for _, e := range m.Edges(end) {
+		if m.Bonds[e.Bond].Order == 2 {
+			continue
+		}
+		r := rank[e.Atom]
+		switch {
+		case r > bestRank:
+			best, bestRank, tie = e.Atom, r, false
+		case r == bestRank:
+			tie = true
+		}
+	}
+	if tie || best < 0 {
+		return 0, false
+	}
+	if best == ref {
+		return 1, true
+	}
+	return -1, true
+}
+
+// parityCode reads a winding against the ranks of its references: 1 or 2
+// for the two senses, 3 when two references share a rank.
+func parityCode(w molecule.Winding, keys [4]int32) int32 {
+	for i := range 4 {
+		for j := i + 1; j < 4; j++ {
+			if keys[i] == keys[j] {
+				return 3
+			}
+		}
+	}
+	if windingFor(w, keys) == molecule.Anticlockwise {
+		return 1
+	}
+	return 2
+}

@@ -1,0 +1,91 @@
+package main
+
+import (
+	"context"
+	"flag"
+	"fmt"
+	"io"
+	"log/slog"
+	"os"
+	"os/signal"
+	"syscall"
+
+	"walden/server"
+)
+
+func init() {
+	commands["serve"] = command{"speak the Language Server Protocol on stdin and stdout", runServe}
+}
+
+// runServe runs the language server on stdin and stdout. Nothing but
+// JSON-RPC may reach stdout, so the log goes to stderr or --log FILE, and
+// os.Stdout is pointed at stderr for the session: a stray print anywhere
+// cannot corrupt the stream.
+func runServe(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
+	fs := flag.NewFlagSet("serve", flag.ContinueOnError)
+	fs.SetOutput(stderr)
+	logFile := fs.String("log", "", "append the server's log to `FILE` instead of stderr")
+	verbose := fs.Bool("v", false, "log every message, not only problems")
+	fs.Usage = func() {
+		fmt.Fprintln(stderr, "usage: walden serve [--log FILE] [-v]\n\nSpeaks the Language Server Protocol over stdin and stdout; editors start it.")
+		fs.PrintDefaults()
+	}
+	if err := fs.Parse(args); err != nil {
+		if err == flag.ErrHelp {
+			return 0
+		}
+		return 2
+	}
+	if fs.NArg() > 0 {
+		fmt.Fprintf(stderr, "walden serve: unexpected argument %q\n", fs.Arg(0))
+		return 2
+	}
+
+	logTo := stderr
+	if *logFile != "" {
+		f, err := os.OpenFile(*logFile, os.O_CREATE|os.O_APPEND|os.O_WRONLY, 0o644)
+		if err != nil {
+			fmt.Fprintf(stderr, "walden serve: %v\n", err)
+			return 1
+		}
+		defer f.Close()
+		logTo = f
+	}
+	level := slog.LevelInfo
+	if *verbose {
+		level = slog.LevelDebug
+	}
+	log := slog.New(slog.NewTextHandler(logTo, &slog.HandlerOptions{Level: level}))
+
+	if stdout == os.Stdout {
+		os.Stdout = os.Stderr
+		defer func() { os.Stdout = stdout.(*os.File) }()
+	}
+
+	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)
+	defer stop()
+	s := server.New(server.Options{Log: log, Version: version})
+	log.Info("walden serve started", "version", version, "pid", os.Getpid())
+	code := s.Serve(ctx, stdio{stdin, stdout})
+	log.Info("walden serve stopped", "exit", code)
+	return code
+}
+
+// stdio joins the process's standard input and output into the one
+// stream the server speaks on.
+type stdio struct {
+	io.Reader
+	io.Writer
+}
+
+// Close closes both ends that can be closed, which unblocks a pending
+// read when the session ends.
+func (s stdio) Close() error {
+	if c, ok := s.Reader.(io.Closer); ok {
+		c.Close()
+	}
+	if c, ok := s.Writer.(io.Closer); ok {
+		return c.Close()
+	}
+	return nil
+}

@@ -1,0 +1,50 @@
+package notation
+
+import (
+	"testing"
+	"unicode/utf8"
+
+	"walden/grammar/source"
+)
+
+// FuzzParse: any bytes give a tree and errors whose spans lie in the
+// line, in order, without a panic.
+func FuzzParse(f *testing.F) {
+	for _, s := range []string{
+		"[x] azide: @mesylate + NaN3 (1.5 eq), DMF, 60 °C, 12 h -> C[C@@H](N=[N+]=[N-])CCc1ccccc1 // ok",
+		"(S)-4-phenylbutan-2-ol + potassium phthalimide, acetone–water 4:1, 0 °C to rt, 2 d",
+		"CC(Br)C +", "CCBr + NaN3, DM", "@ + ,, NaN3 (1.5 eq", "F/C=C/F + THF/, −78 °C -> rt -> ->",
+		"1,4-dioxane, N,N-DMF,60 °C", "CCBr>>C", "[-]x", "a: ", "((((", "0–25 °C to", "12-16 h, 3 mol %",
+	} {
+		f.Add([]byte(s), 7)
+	}
+	f.Fuzz(func(t *testing.T, line []byte, base int) {
+		base = base & 0xffff
+		st, errs := Parse(line, source.Pos(base))
+		if st == nil {
+			t.Fatal("nil step")
+		}
+		lo, hi := source.Pos(base), source.Pos(base+len(line))
+		for i, e := range errs {
+			if e.Span.Start < lo || e.Span.End > hi || e.Span.Start > e.Span.End {
+				t.Fatalf("error span %v outside [%d,%d): %s", e.Span, lo, hi, e.Msg)
+			}
+			if i > 0 && errs.Less(i, i-1) {
+				t.Fatal("errors not sorted")
+			}
+			if e.Code == "" || !utf8.ValidString(e.Code) {
+				t.Fatalf("error without code: %s", e.Msg)
+			}
+		}
+		if len(errs) > maxErrors+1 {
+			t.Fatalf("%d errors", len(errs))
+		}
+		Inspect(st, func(n Node) bool {
+			if n.Pos() < lo || n.End() > hi || n.Pos() > n.End() {
+				t.Fatalf("%T span [%d,%d) outside [%d,%d)", n, n.Pos(), n.End(), lo, hi)
+			}
+			return true
+		})
+		_ = st.String()
+	})
+}

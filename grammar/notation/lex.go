@@ -1,0 +1,186 @@
+package notation
+
+import (
+	"strings"
+	"unicode/utf8"
+)
+
+// tokKind is the kind of a lexical token of a step line.
+type tokKind int
+
+const (
+	tWord  tokKind = iota + 1 // a run of non-space text: SMILES, name, number, unit
+	tGroup                    // "( … )" opened at the start of a word and closed before a break
+	tPlus                     // "+"
+	tComma                    // "," that separates
+	tArrow                    // "->" or "→"
+)
+
+// tok is a token with its byte range in the line. A group's range
+// includes its parentheses (the closing one may be missing).
+type tok struct {
+	kind       tokKind
+	start, end int
+	closed     bool // for tGroup: the ')' was found
+}
+
+// spaceAt returns the length of the whitespace character at i, or 0.
+// Besides space and tab it accepts the no-break and thin spaces that
+// word processors put between a number and its unit ("60 °C").
+func (p *parser) spaceAt(i, end int) int {
+	if i >= end {
+		return 0
+	}
+	switch c := p.src[i]; c {
+	case ' ', '\t':
+		return 1
+	case 0xC2: // U+00A0 no-break space
+		if i+1 < end && p.src[i+1] == 0xA0 {
+			return 2
+		}
+	case 0xE2: // U+2002, U+2003, U+2009 thin space, U+202F narrow no-break space
+		if i+2 < end && p.src[i+1] == 0x80 {
+			switch p.src[i+2] {
+			case 0x82, 0x83, 0x89, 0xAF:
+				return 3
+			}
+		}
+	}
+	return 0
+}
+
+// arrowAt returns the length of an arrow at i ("->" or "→"), or 0. A
+// hyphen followed by '>' never occurs in SMILES, so the arrow needs no
+// spaces around it.
+func (p *parser) arrowAt(i, end int) int {
+	switch {
+	case i+1 < end && p.src[i] == '-' && p.src[i+1] == '>':
+		return 2
+	case i+2 < end && p.src[i] == 0xE2 && p.src[i+1] == 0x86 && p.src[i+2] == 0x92: // U+2192 →
+		return 3
+	case i+2 < end && p.src[i] == 0xE2 && p.src[i+1] == 0x9F && p.src[i+2] == 0xB6: // U+27F6 ⟶
+		return 3
+	}
+	return 0
+}
+
+// commaSeparates reports whether the comma at i separates terms. A comma
+// followed by a space always does. One followed by more text is part of a
+// name when it sits in a locant list such as "1,4-dioxane" or
+// "N,N-dimethylformamide" (letters or digits on both sides and a hyphen
+// later in the word); otherwise it still separates, forgiving a missing
+// space ("DMF,60 °C").
+func (p *parser) commaSeparates(i, end int) bool {
+	if i+1 >= end || p.spaceAt(i+1, end) > 0 || i == 0 {
+		return true
+	}
+	prev, next := p.src[i-1], p.src[i+1]
+	if !(isDigitByte(prev) || isUpperByte(prev) || prev == '\'') || !(isDigitByte(next) || isUpperByte(next)) {
+		return true
+	}
+	for j := i + 1; j < end && p.spaceAt(j, end) == 0; j++ {
+		if p.src[j] == '-' {
+			return false
+		}
+		if p.src[j] == ',' && j+1 < end && p.spaceAt(j+1, end) > 0 {
+			return true
+		}
+	}
+	return true
+}
+
+func isUpperByte(c byte) bool { return 'A' <= c && c <= 'Z' }
+
+// breakAt reports whether a word cannot continue at i: the end, a space,
+// a separating comma or an arrow.
+func (p *parser) breakAt(i, end int) bool {
+	return i >= end || p.spaceAt(i, end) > 0 || p.arrowAt(i, end) > 0 ||
+		p.src[i] == ',' && p.commaSeparates(i, end)
+}
+
+// matchParen returns the index of the ')' closing the '(' at i, or -1.
+func (p *parser) matchParen(i, end int) int {
+	depth := 0
+	for j := i; j < end; j++ {
+		switch p.src[j] {
+		case '(':
+			depth++
+		case ')':
+			depth--
+			if depth == 0 {
+				return j
+			}
+		}
+	}
+	return -1
+}
+
+// lex appends the tokens of src[i:end] to toks. SMILES hold no spaces, so every
+// separator that could also be a SMILES character ('+', '(') is a
+// separator only at the start of a word; ',' and arrows never occur in
+// SMILES and separate anywhere (see commaSeparates for names).
+func (p *parser) lex(toks []tok, i, end int) []tok {
+	for i < end {
+		if n := p.spaceAt(i, end); n > 0 {
+			i += n
+			continue
+		}
+		if n := p.arrowAt(i, end); n > 0 {
+			toks = append(toks, tok{kind: tArrow, start: i, end: i + n})
+			i += n
+			continue
+		}
+		switch p.src[i] {
+		case '+':
+			toks = append(toks, tok{kind: tPlus, start: i, end: i + 1})
+			i++
+			continue
+		case ',':
+			toks = append(toks, tok{kind: tComma, start: i, end: i + 1})
+			i++
+			continue
+		case '(':
+			// "(S)-4-phenylbutan-2-ol" is a name that starts with a
+			// parenthesis; "(1.5 eq)" stands apart and is a group.
+			close := p.matchParen(i, end)
+			if close < 0 {
+				toks = append(toks, tok{kind: tGroup, start: i, end: end})
+				i = end
+				continue
+			}
+			if p.breakAt(close+1, end) {
+				toks = append(toks, tok{kind: tGroup, start: i, end: close + 1, closed: true})
+				i = close + 1
+				continue
+			}
+		}
+		j := i
+		for j < end && !p.breakAt(j, end) {
+			if p.src[j] < utf8.RuneSelf {
+				j++
+				continue
+			}
+			_, size := utf8.DecodeRune(p.src[j:end])
+			j += size
+		}
+		toks = append(toks, tok{kind: tWord, start: i, end: j})
+		i = j
+	}
+	return toks
+}
+
+// text returns the bytes of t as a string.
+func (p *parser) text(t tok) string { return p.str[t.start:t.end] }
+
+// quote shortens s for a message.
+func quote(s string) string {
+	const max = 40
+	if len(s) > max {
+		cut := max
+		for cut > 0 && !utf8.RuneStart(s[cut]) {
+			cut--
+		}
+		s = s[:cut] + "…"
+	}
+	return "'" + strings.ReplaceAll(s, "'", "’") + "'"
+}

@@ -1,0 +1,381 @@
+package notation
+
+import (
+	"fmt"
+	"strings"
+	"unicode/utf8"
+
+	"walden/grammar/source"
+)
+
+// MaxLineLength is the longest step line Parse reads, in bytes. A longer
+// line gets one error and an empty Step: no chemist writes a 16 KiB
+// reaction, and refusing keeps every later stage bounded.
+const MaxLineLength = 16 << 10
+
+// maxErrors bounds the errors reported for one line, so that a pasted
+// binary blob yields a short list.
+const maxErrors = 50
+
+// parser holds the state of one Parse call.
+type parser struct {
+	src  []byte
+	str  string // src as a string: node texts are substrings of it, which costs no allocation
+	base source.Pos
+	errs source.ErrorList
+
+	// Nodes are carved from small slabs: a step has a dozen nodes, and
+	// one allocation per node would dominate the parse time.
+	termSlab []Term
+	sepSlab  []Sep
+	subSlab  []Substance
+	qtySlab  []Quantity
+	tokBuf   [32]tok
+}
+
+const slabSize = 8
+
+func (p *parser) newTerm() *Term {
+	if len(p.termSlab) == cap(p.termSlab) {
+		p.termSlab = make([]Term, 0, slabSize)
+	}
+	p.termSlab = p.termSlab[:len(p.termSlab)+1]
+	return &p.termSlab[len(p.termSlab)-1]
+}
+
+func (p *parser) newSep() *Sep {
+	if len(p.sepSlab) == cap(p.sepSlab) {
+		p.sepSlab = make([]Sep, 0, slabSize)
+	}
+	p.sepSlab = p.sepSlab[:len(p.sepSlab)+1]
+	return &p.sepSlab[len(p.sepSlab)-1]
+}
+
+func (p *parser) newSubstance() *Substance {
+	if len(p.subSlab) == cap(p.subSlab) {
+		p.subSlab = make([]Substance, 0, slabSize)
+	}
+	p.subSlab = p.subSlab[:len(p.subSlab)+1]
+	return &p.subSlab[len(p.subSlab)-1]
+}
+
+func (p *parser) newQuantity() *Quantity {
+	if len(p.qtySlab) == cap(p.qtySlab) {
+		p.qtySlab = make([]Quantity, 0, slabSize)
+	}
+	p.qtySlab = p.qtySlab[:len(p.qtySlab)+1]
+	return &p.qtySlab[len(p.qtySlab)-1]
+}
+
+// Parse reads one step line. line must not hold its line end; base is
+// the offset of line[0] in the host document, and every position in the
+// returned tree and errors is base-relative, i.e. a host offset.
+//
+// Parse always returns a Step, holding every part it could read, and
+// every syntax error it found, sorted by position. It recovers at each
+// separator (" + ", ", ", "->"), so one bad term does not hide the rest of
+// the line. It does not judge chemistry: whether a word is a known name or
+// valid SMILES, or a term a sensible solvent, is left to analyze/.
+func Parse(line []byte, base source.Pos) (*Step, source.ErrorList) {
+	p := &parser{src: line, base: base}
+	st := &Step{Span: p.span(0, len(line))}
+	if len(line) > MaxLineLength {
+		p.errorf(0, len(line), "line-too-long",
+			"step line is %d bytes long; walden reads at most %d bytes per line: split the line or shorten it",
+			len(line), MaxLineLength)
+		return st, p.errs
+	}
+	p.str = string(line)
+	p.checkBytes()
+	end := len(line)
+	if c := p.commentStart(); c >= 0 {
+		st.Comment = &Comment{Span: p.span(c, end), Text: strings.TrimSpace(p.str[c+2 : end])}
+		end = c
+	}
+	i := p.skipSpace(0, end)
+	i = p.mark(st, i, end)
+	toks := p.lex(p.tokBuf[:0], i, end)
+	toks = p.label(st, toks)
+	p.terms(st, toks)
+	if len(p.errs) > maxErrors {
+		p.errs = p.errs[:maxErrors]
+		p.errorf(0, len(line), "too-many-errors", "more than %d errors on this line; only the first are shown", maxErrors)
+	}
+	p.errs.Sort()
+	return st, p.errs
+}
+
+// span converts a range of the line into host offsets.
+func (p *parser) span(a, b int) source.Span {
+	return source.Span{Start: p.base + source.Pos(a), End: p.base + source.Pos(b)}
+}
+
+func (p *parser) errorf(a, b int, code, format string, args ...any) {
+	if len(p.errs) > maxErrors {
+		return
+	}
+	p.errs.Add(p.span(a, b), code, fmt.Sprintf(format, args...))
+}
+
+func (p *parser) skipSpace(i, end int) int {
+	for n := p.spaceAt(i, end); n > 0; n = p.spaceAt(i, end) {
+		i += n
+	}
+	return i
+}
+
+// checkBytes reports invalid UTF-8 and control characters, which no
+// editor shows faithfully; the bytes stay in the words that hold them.
+func (p *parser) checkBytes() {
+	for i := 0; i < len(p.src); {
+		c := p.src[i]
+		if c < utf8.RuneSelf {
+			if c < 0x20 && c != '\t' || c == 0x7F {
+				p.errorf(i, i+1, "control-character", "control character U+%04X found in a step line; delete it", c)
+			}
+			i++
+			continue
+		}
+		r, size := utf8.DecodeRune(p.src[i:])
+		if r == utf8.RuneError && size == 1 {
+			j := i + 1
+			for j < len(p.src) && p.src[j] >= utf8.RuneSelf && !utf8.FullRune(p.src[j:]) {
+				j++
+			}
+			p.errorf(i, j, "invalid-utf8", "invalid UTF-8 byte 0x%02X; the file must be saved as UTF-8", c)
+			i = j
+			continue
+		}
+		i += size
+	}
+}
+
+// commentStart returns where "//" begins a comment, or -1. The marker
+// must open the line or follow a space: a SMILES never holds a space and
+// never starts with '/', so " //" cannot be part of one.
+func (p *parser) commentStart() int {
+	for i := 0; i+1 < len(p.src); i++ {
+		if p.src[i] == '/' && p.src[i+1] == '/' && (i == 0 || p.src[i-1] == ' ' || p.src[i-1] == '\t' || p.skipSpace(0, i) == i) {
+			return i
+		}
+	}
+	return -1
+}
+
+// mark reads a status mark "[x]", "[X]", "[-]" or "[ ]" at i. A mark
+// must be followed by a space or the end: "[x]" and "[-]" are not SMILES
+// bracket atoms (no element symbol is x or empty), and the space keeps
+// the mark apart from any word after it.
+func (p *parser) mark(st *Step, i, end int) int {
+	if i+2 >= end || p.src[i] != '[' || p.src[i+2] != ']' {
+		return i
+	}
+	var state MarkState
+	switch p.src[i+1] {
+	case ' ':
+		state = Open
+	case 'x', 'X':
+		state = Done
+	case '-':
+		state = Skipped
+	default:
+		return i
+	}
+	st.Mark = &Mark{Span: p.span(i, i+3), State: state}
+	if i+3 < end && p.spaceAt(i+3, end) == 0 {
+		p.errorf(i, i+3, "mark-space", "status mark %s is followed by %s; put a space after the mark",
+			quote(p.str[i:i+3]), quote(p.wordAt(i+3, end)))
+		return i + 3
+	}
+	return p.skipSpace(i+3, end)
+}
+
+// wordAt returns the text from i to the next space.
+func (p *parser) wordAt(i, end int) string {
+	j := i
+	for j < end && p.spaceAt(j, end) == 0 {
+		j++
+	}
+	return p.str[i:j]
+}
+
+// label reads "name:" from the first token. A SMILES never ends with
+// ':' (it is a bond and needs an atom after it), so a first word ending
+// in a colon is a label.
+func (p *parser) label(st *Step, toks []tok) []tok {
+	if len(toks) == 0 || toks[0].kind != tWord || p.src[toks[0].end-1] != ':' {
+		return toks
+	}
+	t := toks[0]
+	name := p.str[t.start : t.end-1]
+	st.Label = &Label{Span: p.span(t.start, t.end), Name: name, NameSpan: p.span(t.start, t.end-1)}
+	switch {
+	case name == "":
+		p.errorf(t.start, t.end, "label-empty", "':' with no label before it; write a label such as 'azide:' or delete the ':'")
+	default:
+		for k := 0; k < len(name); k++ {
+			if !isLabelByte(name[k]) {
+				p.errorf(t.start, t.end-1, "label-bad",
+					"step label %s holds %s; a label is ASCII letters, digits, '_', '-' and \"'\" followed by ':'",
+					quote(name), quote(badRune(name[k:])))
+				break
+			}
+		}
+	}
+	if len(toks) == 1 {
+		p.errorf(t.start, t.end, "missing-substrate", "label %s names no step; write the substrate after it", quote(name+":"))
+	}
+	return toks[1:]
+}
+
+// badRune returns the first character of s.
+func badRune(s string) string {
+	_, size := utf8.DecodeRuneInString(s)
+	return s[:size]
+}
+
+// segment is the tokens between two separators, with the separator
+// before them (nil for the first).
+type segment struct {
+	sep  *tok
+	toks []tok
+}
+
+// phase is the part of the line a term belongs to.
+type phase int
+
+const (
+	inReactants phase = iota
+	inConditions
+	inProducts
+)
+
+// terms groups the tokens into terms and files each into its part of the
+// step.
+func (p *parser) terms(st *Step, toks []tok) {
+	segs := []segment{{}}
+	for k := range toks {
+		t := &toks[k]
+		switch t.kind {
+		case tPlus, tComma, tArrow:
+			segs = append(segs, segment{sep: t})
+		default:
+			segs[len(segs)-1].toks = append(segs[len(segs)-1].toks, *t)
+		}
+	}
+	if len(segs) == 1 && len(segs[0].toks) == 0 {
+		if st.Mark != nil && st.Label == nil {
+			p.errorf(int(st.Mark.Span.Start-p.base), int(st.Mark.Span.End-p.base), "missing-substrate",
+				"status mark with no step after it; write the step after the mark")
+		}
+		return
+	}
+	ph := inReactants
+	for k, seg := range segs {
+		var sep *Sep
+		if seg.sep != nil {
+			switch seg.sep.kind {
+			case tPlus:
+				sep = p.newSep()
+				*sep = Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Plus}
+			case tComma:
+				sep = p.newSep()
+				*sep = Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Comma}
+				if ph == inReactants {
+					ph = inConditions
+				} else if ph == inProducts {
+					ph = inConditions
+				}
+			case tArrow:
+				if p.rangeAcrossArrow(st, ph, seg) {
+					continue
+				}
+				a := &Arrow{Span: p.span(seg.sep.start, seg.sep.end)}
+				if st.Arrow != nil {
+					p.errorf(seg.sep.start, seg.sep.end, "second-arrow",
+						"second arrow in one step; a step has one '->' before its expected products: split the line into two steps")
+				} else {
+					st.Arrow = a
+				}
+				ph = inProducts
+				if len(seg.toks) == 0 {
+					if k+1 < len(segs) && segs[k+1].sep.kind != tArrow {
+						p.errorf(seg.sep.start, seg.sep.end, "missing-product",
+							"expected a product after %s, found %s; write the expected product or delete the arrow",
+							quote(p.text(*seg.sep)), quote(p.text(*segs[k+1].sep)))
+					}
+					// A bare arrow at the end of a line asks for the
+					// prediction; it is not an error.
+					continue
+				}
+				st.Products = append(st.Products, p.term(seg.toks, nil))
+				continue
+			}
+		}
+		if len(seg.toks) == 0 {
+			p.emptySegment(segs, k, ph)
+			continue
+		}
+		t := p.term(seg.toks, sep)
+		switch ph {
+		case inReactants:
+			st.Reactants = append(st.Reactants, t)
+		case inConditions:
+			st.Conditions = append(st.Conditions, t)
+		case inProducts:
+			st.Products = append(st.Products, t)
+		}
+	}
+}
+
+// emptySegment reports a separator with nothing on one side.
+func (p *parser) emptySegment(segs []segment, k int, ph phase) {
+	seg := segs[k]
+	switch {
+	case k == 0:
+		next := segs[1].sep
+		p.errorf(next.start, next.end, "missing-substrate",
+			"expected the substrate before %s, found the start of the line; write the substrate first", quote(p.text(*next)))
+	case k == len(segs)-1:
+		what := "a reactant"
+		switch {
+		case seg.sep.kind == tComma:
+			what = "a condition (solvent, temperature, time or reagent)"
+		case ph == inProducts:
+			what = "a product"
+		case ph == inConditions:
+			what = "a reagent"
+		}
+		p.errorf(seg.sep.start, seg.sep.end, "missing-term",
+			"expected %s after %s, found the end of the line; write it or delete the %s",
+			what, quote(p.text(*seg.sep)), quote(p.text(*seg.sep)))
+	default:
+		next := segs[k+1].sep
+		p.errorf(seg.sep.start, next.end, "empty-term",
+			"nothing between %s and %s; delete one of them or write the missing term",
+			quote(p.text(*seg.sep)), quote(p.text(*next)))
+	}
+}
+
+// rangeAcrossArrow handles "-78 °C -> rt" among the conditions: an arrow
+// between two temperatures is a temperature range, not the reaction
+// arrow. It reports whether it took the segment.
+func (p *parser) rangeAcrossArrow(st *Step, ph phase, seg segment) bool {
+	if ph != inConditions || len(st.Conditions) == 0 || len(seg.toks) == 0 {
+		return false
+	}
+	last := st.Conditions[len(st.Conditions)-1]
+	if last.Substance != nil || len(last.Quantities) != 1 || last.Quantities[0].Kind != Temperature || last.Quantities[0].To != nil {
+		return false
+	}
+	q, n, errs := p.quantity(seg.toks, 0, false)
+	if q == nil || q.Kind != Temperature || n != len(seg.toks) {
+		return false
+	}
+	p.errs = append(p.errs, errs...)
+	from := last.Quantities[0]
+	from.To = q
+	from.Span.End = q.Span.End
+	last.Span.End = q.Span.End
+	return true
+}

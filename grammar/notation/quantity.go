@@ -1,0 +1,210 @@
+package notation
+
+import (
+	_ "embed"
+	"strconv"
+	"strings"
+)
+
+// The unit and word tables are data, not code: units.tsv lists every unit
+// spelling accepted after a number and words.tsv every word standing for a
+// quantity, each row with its source.
+var (
+	//go:embed units.tsv
+	unitsTSV string
+	//go:embed words.tsv
+	wordsTSV string
+
+	units                  = map[string]unit{} // exact spelling
+	foldedUnits            = map[string]unit{} // lower-cased spelling, for rows marked fold
+	quantityWords          = map[string]unit{} // lower-cased word or words joined by one space
+	maxWordsInQuantityWord = 1
+)
+
+// unit is one row of units.tsv or words.tsv.
+type unit struct {
+	kind QuantityKind
+	name string // canonical unit, or the word for words.tsv
+}
+
+func init() {
+	kinds := map[string]QuantityKind{}
+	for k := Bare; k <= Ratio; k++ {
+		kinds[k.String()] = k
+	}
+	for _, row := range tsvRows(unitsTSV) {
+		u := unit{kinds[row[1]], row[2]}
+		if u.kind == 0 || len(row) < 5 {
+			panic("notation: bad row in units.tsv: " + strings.Join(row, "\t"))
+		}
+		units[row[0]] = u
+		if row[3] == "yes" {
+			foldedUnits[strings.ToLower(row[0])] = u
+		}
+	}
+	for _, row := range tsvRows(wordsTSV) {
+		u := unit{kinds[row[1]], row[2]}
+		if u.kind == 0 || len(row) < 4 {
+			panic("notation: bad row in words.tsv: " + strings.Join(row, "\t"))
+		}
+		for _, w := range strings.Split(row[0], "|") {
+			quantityWords[w] = u
+			maxWordsInQuantityWord = max(maxWordsInQuantityWord, strings.Count(w, " ")+1)
+		}
+	}
+}
+
+// tsvRows splits an embedded table into rows of fields, skipping comments
+// and blank lines.
+func tsvRows(tsv string) [][]string {
+	var rows [][]string
+	for _, line := range strings.Split(tsv, "\n") {
+		if line == "" || line[0] == '#' {
+			continue
+		}
+		rows = append(rows, strings.Split(line, "\t"))
+	}
+	return rows
+}
+
+// lookupUnit returns the unit spelled s.
+func lookupUnit(s string) (unit, bool) {
+	if u, ok := units[s]; ok {
+		return u, true
+	}
+	var buf [24]byte
+	if len(s) > len(buf) {
+		return unit{}, false
+	}
+	u, ok := foldedUnits[string(lowerASCII(buf[:0], s))]
+	return u, ok
+}
+
+// lowerASCII appends s to b with ASCII letters in lower case; the unit
+// and word tables hold no other letters that fold.
+func lowerASCII(b []byte, s string) []byte {
+	for i := 0; i < len(s); i++ {
+		c := s[i]
+		if 'A' <= c && c <= 'Z' {
+			c += 'a' - 'A'
+		}
+		b = append(b, c)
+	}
+	return b
+}
+
+// quantityWord looks up the words ws, joined by one space, in words.tsv,
+// without regard to ASCII case.
+func (p *parser) quantityWord(ws []tok) (unit, bool) {
+	var buf [48]byte
+	b := buf[:0]
+	for i, w := range ws {
+		if i > 0 {
+			b = append(b, ' ')
+		}
+		if len(b)+w.end-w.start > len(buf) {
+			return unit{}, false
+		}
+		b = lowerASCII(b, p.str[w.start:w.end])
+	}
+	u, ok := quantityWords[string(b)]
+	return u, ok
+}
+
+// number is a number read from the start of a word, with an optional
+// range ("0–25", "12-16").
+type number struct {
+	value   float64
+	to      float64
+	hasTo   bool
+	end     int // bytes of the word used
+	toStart int // where the upper end starts in the word
+}
+
+// readNumber reads an optionally signed decimal number, and an optional
+// range to a second, unsigned one ("0–25", "12-16"), from the start of w.
+// It accepts the hyphen, the Unicode minus sign (U+2212) and the en dash
+// (U+2013) as a leading minus, because all three reach notebooks through
+// copying from documents.
+func readNumber(w string) (number, bool) {
+	var n number
+	v, end, ok := readSigned(w)
+	if !ok {
+		return n, false
+	}
+	n.value, n.end = v, end
+	rest := w[end:]
+	for _, dash := range []string{"-", "–", "−", "~"} {
+		if strings.HasPrefix(rest, dash) {
+			after := rest[len(dash):]
+			if len(after) > 0 && (isDigitByte(after[0]) || after[0] == '.') {
+				if to, e, ok := readSigned(after); ok {
+					n.to, n.hasTo, n.toStart = to, true, end+len(dash)
+					n.end = end + len(dash) + e
+				}
+			}
+			break
+		}
+	}
+	return n, true
+}
+
+func isDigitByte(c byte) bool { return '0' <= c && c <= '9' }
+
+// readSigned reads a decimal number with an optional sign.
+func readSigned(w string) (float64, int, bool) {
+	i, neg := 0, false
+	for _, sign := range []string{"-", "−", "–", "+"} {
+		if strings.HasPrefix(w, sign) {
+			i, neg = len(sign), sign != "+"
+			break
+		}
+	}
+	start, digits := i, 0
+	for i < len(w) && isDigitByte(w[i]) {
+		i++
+		digits++
+	}
+	if i < len(w) && w[i] == '.' && i+1 < len(w) && isDigitByte(w[i+1]) {
+		i++
+		for i < len(w) && isDigitByte(w[i]) {
+			i++
+			digits++
+		}
+	}
+	if digits == 0 || digits > 30 {
+		return 0, 0, false
+	}
+	v, err := strconv.ParseFloat(w[start:i], 64)
+	if err != nil {
+		return 0, 0, false
+	}
+	if neg {
+		v = -v
+	}
+	return v, i, true
+}
+
+// readRatio reads "4:1" or "1:1:2".
+func readRatio(w string) ([]float64, bool) {
+	if !strings.Contains(w, ":") {
+		return nil, false
+	}
+	parts := strings.Split(w, ":")
+	out := make([]float64, 0, len(parts))
+	for _, p := range parts {
+		v, end, ok := readSigned(p)
+		if !ok || end != len(p) || strings.ContainsAny(p[:1], "-−–+") {
+			return nil, false
+		}
+		out = append(out, v)
+	}
+	return out, true
+}
+
+// isLabelByte reports whether c may appear in a step label: ASCII letters,
+// digits, '_', '-' and the prime "'" ("3a'"), none of which lets a label
+// be taken for the SMILES that may follow it.
+func isLabelByte(c byte) bool {
+	return c == '_' || c == '-' || c == '\'' || isDigitByte(c) || 'a' <= c && c <= 'z' || 'A' <= c && c <= 'Z'
+}

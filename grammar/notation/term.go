@@ -1,0 +1,394 @@
+package notation
+
+import (
+	"strings"
+
+	"walden/grammar/source"
+)
+
+// term reads the tokens between two separators: quantities (wherever
+// they stand), parenthesised groups, and the words left over, which name
+// the substance.
+func (p *parser) term(toks []tok, sep *Sep) *Term {
+	t := p.newTerm()
+	*t = Term{Sep: sep, Span: p.span(toks[0].start, toks[len(toks)-1].end)}
+	var subs []*Substance
+	var run []tok
+	flush := func() {
+		if len(run) > 0 {
+			subs = append(subs, p.substance(run))
+			run = nil
+		}
+	}
+	for k := 0; k < len(toks); {
+		tk := toks[k]
+		if tk.kind == tGroup {
+			flush()
+			p.group(t, tk)
+			k++
+			continue
+		}
+		if p.src[tk.start] == '@' {
+			flush()
+			subs = append(subs, p.reference(tk))
+			k++
+			continue
+		}
+		if q, n, errs := p.quantity(toks, k, true); q != nil {
+			flush()
+			t.Quantities = append(t.Quantities, q)
+			p.errs = append(p.errs, errs...)
+			k += n
+			continue
+		}
+		p.wordChecks(tk)
+		run = append(run, tk)
+		k++
+	}
+	flush()
+	if len(subs) > 0 {
+		t.Substance = subs[0]
+		for _, s := range subs[1:] {
+			p.errorf(int(s.Span.Start-p.base), int(s.Span.End-p.base), "two-substances",
+				"second substance %s in one term after %s; separate substances with ' + ' (a reactant) or ', ' (a condition)",
+				quote(s.Text), quote(subs[0].Text))
+		}
+	}
+	if s := t.Substance; s != nil && s.Kind == Mixture {
+		for k, q := range t.Quantities {
+			if q.Kind == Ratio {
+				s.Ratio = q
+				t.Quantities = append(t.Quantities[:k:k], t.Quantities[k+1:]...)
+				break
+			}
+		}
+	}
+	return t
+}
+
+// wordChecks reports the slips a chemist makes inside one word that the
+// notation can recognise without knowing chemistry.
+func (p *parser) wordChecks(tk tok) {
+	w := p.src[tk.start:tk.end]
+	depth := 0
+	for i, c := range w {
+		switch c {
+		case '[':
+			depth++
+		case ']':
+			depth--
+		case '>':
+			p.errorf(tk.start+i, tk.start+i+1, "reaction-smiles",
+				"'>' in %s: walden does not read reaction SMILES; write 'substrate + reagent, conditions -> product'", quote(string(w)))
+			return
+		case '+':
+			// Outside brackets '+' is no SMILES character: two substances
+			// were joined without spaces.
+			if depth == 0 && i > 0 && i+1 < len(w) {
+				p.errorf(tk.start+i, tk.start+i+1, "plus-spaces",
+					"'+' inside %s; put a space on each side of '+' to separate substances: %s",
+					quote(string(w)), quote(string(w[:i])+" + "+string(w[i+1:])))
+				return
+			}
+		}
+	}
+}
+
+// reference reads "@label".
+func (p *parser) reference(tk tok) *Substance {
+	name := p.str[tk.start+1 : tk.end]
+	s := p.newSubstance()
+	*s = Substance{Span: p.span(tk.start, tk.end), Kind: Reference, Text: name}
+	if name == "" {
+		p.errorf(tk.start, tk.end, "reference-empty", "'@' with no label after it; write the label of an earlier step, as in '@mesylate'")
+		return s
+	}
+	for k := 0; k < len(name); k++ {
+		if !isLabelByte(name[k]) {
+			p.errorf(tk.start+1+k, tk.end, "reference-bad",
+				"reference %s holds %s; a label is ASCII letters, digits, '_', '-' and \"'\"", quote("@"+name), quote(badRune(name[k:])))
+			break
+		}
+	}
+	return s
+}
+
+// quantity reads a quantity starting at toks[k]: a word such as "rt", a
+// number with its unit (glued or as the next word), a ratio, optionally
+// after "at" or "for", optionally a range "… to …". It returns the
+// quantity, how many tokens it used, and the errors to report if the
+// caller keeps it; nil when toks[k] does not start a quantity. When
+// ranges is false it does not look for "to" (the upper end of a range).
+func (p *parser) quantity(toks []tok, k int, ranges bool) (*Quantity, int, source.ErrorList) {
+	words := 0
+	for k+words < len(toks) && toks[k+words].kind == tWord {
+		words++
+	}
+	if words == 0 {
+		return nil, 0, nil
+	}
+	wordAt := func(i int) string { return p.text(toks[k+i]) }
+	// "at 60 °C", "for 3 h"
+	if w := wordAt(0); (strings.EqualFold(w, "at") || strings.EqualFold(w, "for")) && words > 1 {
+		if q, n, errs := p.quantity(toks, k+1, ranges); q != nil && q.Kind != Bare {
+			q.Span.Start = p.span(toks[k].start, toks[k].end).Start
+			return q, n + 1, errs
+		}
+	}
+	q, n := p.single(toks[k:k+words], words == 1 || toks[k+1].kind != tWord)
+	if q == nil {
+		return nil, 0, nil
+	}
+	var errs source.ErrorList
+	if ranges && n+1 < words+1 && n < words && strings.EqualFold(wordAt(n), "to") {
+		toTok := toks[k+n]
+		if to, m, e2 := p.quantity(toks, k+n+1, false); to != nil && (to.Kind == q.Kind || q.Kind == Bare || to.Kind == Bare) {
+			if q.Kind == Bare {
+				q.Kind, q.Unit = to.Kind, to.Unit
+			}
+			q.To = to
+			q.Span.End = to.Span.End
+			return q, n + 1 + m, append(errs, e2...)
+		}
+		errs.Add(p.span(toTok.start, toTok.end), "range-end",
+			"expected the upper end of the range after 'to', such as 'rt' or '25 °C'; write it or delete 'to'")
+		q.Span.End = p.span(toTok.start, toTok.end).End
+		n++
+	}
+	if q.Kind == Bare {
+		errs.Add(q.Span, "missing-unit",
+			"number "+quote(wordAt(0))+" has no unit; write one, as in '60 °C', '3 h', '1.5 eq' or '3 mol%'")
+	}
+	return q, n, errs
+}
+
+// single reads one quantity without a range from the words ws. last
+// says that ws[0] is the last word of its term, where a number alone is
+// a quantity missing its unit rather than the start of a name ("4 Å MS").
+func (p *parser) single(ws []tok, last bool) (*Quantity, int) {
+	// Words standing for quantities, longest first.
+	for n := min(maxWordsInQuantityWord, len(ws)); n >= 1; n-- {
+		if u, ok := p.quantityWord(ws[:n]); ok {
+			q := p.newQuantity()
+			*q = Quantity{Span: p.span(ws[0].start, ws[n-1].end), Kind: u.kind, Word: u.name}
+			return q, n
+		}
+	}
+	w := p.text(ws[0])
+	if r, ok := readRatio(w); ok {
+		q := p.newQuantity()
+		*q = Quantity{Span: p.span(ws[0].start, ws[0].end), Kind: Ratio, Ratio: r}
+		if len(ws) > 1 && strings.EqualFold(p.text(ws[1]), "v/v") {
+			q.Span.End = p.span(ws[1].start, ws[1].end).End
+			return q, 2
+		}
+		return q, 1
+	}
+	num, ok := readNumber(w)
+	if !ok {
+		return nil, 0
+	}
+	q := p.newQuantity()
+	*q = Quantity{Span: p.span(ws[0].start, ws[0].end), Value: num.value, HasValue: true}
+	if num.hasTo {
+		q.To = p.newQuantity()
+		*q.To = Quantity{Span: p.span(ws[0].start+num.toStart, ws[0].start+num.end), Value: num.to, HasValue: true}
+	}
+	setUnit := func(u unit, a, b int) {
+		q.Kind, q.Unit, q.UnitSpan = u.kind, u.name, p.span(a, b)
+		if q.To != nil {
+			q.To.Kind, q.To.Unit = u.kind, u.name
+		}
+	}
+	if rest := w[num.end:]; rest != "" {
+		// Glued unit: "60°C", "3h", "1.5eq", "3mol%".
+		u, ok := lookupUnit(rest)
+		if !ok {
+			return nil, 0 // "18-crown-6", "2-propanol", "4Å"
+		}
+		setUnit(u, ws[0].start+num.end, ws[0].end)
+		return q, 1
+	}
+	if len(ws) > 1 {
+		next := p.text(ws[1])
+		// Two-word units: "mol %", "deg C", "° C", "wt %".
+		if len(ws) > 2 {
+			if next == "mol" || next == "°" || strings.EqualFold(next, "deg") || next == "wt" {
+				if u, ok := lookupUnit(next + p.text(ws[2])); ok {
+					setUnit(u, ws[1].start, ws[2].end)
+					q.Span.End = p.span(ws[2].start, ws[2].end).End
+					return q, 3
+				}
+			}
+		}
+		if u, ok := lookupUnit(next); ok {
+			setUnit(u, ws[1].start, ws[1].end)
+			q.Span.End = p.span(ws[1].start, ws[1].end).End
+			return q, 2
+		}
+		if strings.EqualFold(next, "to") {
+			q.Kind = Bare
+			return q, 1
+		}
+	}
+	if !last {
+		return nil, 0
+	}
+	q.Kind = Bare
+	return q, 1
+}
+
+// group reads a parenthesised group: quantities separated by commas, or
+// else a note.
+func (p *parser) group(t *Term, g tok) {
+	innerEnd := g.end
+	if g.closed {
+		innerEnd--
+	} else {
+		p.errorf(g.start, g.start+1, "unclosed-paren",
+			"'(' is not closed; write ')' after %s", quote(strings.TrimSpace(p.str[g.start+1:g.end])))
+	}
+	toks := p.lex(nil, g.start+1, innerEnd)
+	if len(toks) == 0 {
+		p.errorf(g.start, g.end, "empty-parens", "empty parentheses; write an amount such as '(1.5 eq)' or delete them")
+		return
+	}
+	var piece []tok
+	take := func() {
+		if len(piece) == 0 {
+			return
+		}
+		var qs []*Quantity
+		var errs source.ErrorList
+		for k := 0; k < len(piece); {
+			q, n, e := p.quantity(piece, k, true)
+			if q == nil {
+				qs = nil
+				break
+			}
+			qs, errs = append(qs, q), append(errs, e...)
+			k += n
+		}
+		if qs != nil {
+			t.Quantities = append(t.Quantities, qs...)
+			p.errs = append(p.errs, errs...)
+		} else {
+			a, b := piece[0].start, piece[len(piece)-1].end
+			t.Notes = append(t.Notes, &Note{Span: p.span(a, b), Text: p.str[a:b]})
+		}
+		piece = nil
+	}
+	for _, tk := range toks {
+		if tk.kind == tComma {
+			take()
+			continue
+		}
+		piece = append(piece, tk)
+	}
+	take()
+}
+
+// substance reads a run of words that are not quantities: one word
+// (SMILES or a name), a phrase (a name of several words), or a mixture
+// of such parts joined by '/' or a dash ("THF/water", "acetone–water").
+func (p *parser) substance(run []tok) *Substance {
+	type piece struct{ start, end int }
+	var parts [][]piece
+	var cur []piece
+	var joins []int // where each joining mark stands
+	cut := func(at int) {
+		parts = append(parts, cur)
+		cur = nil
+		joins = append(joins, at)
+	}
+	for _, tk := range run {
+		start := tk.start
+		for _, j := range p.mixtureJoins(tk) {
+			if j.start > start {
+				cur = append(cur, piece{start, j.start})
+			}
+			cut(j.start)
+			start = j.end
+		}
+		if tk.end > start {
+			cur = append(cur, piece{start, tk.end})
+		}
+	}
+	parts = append(parts, cur)
+	whole := p.span(run[0].start, run[len(run)-1].end)
+	build := func(ps []piece) *Substance {
+		s := p.newSubstance()
+		*s = Substance{Span: p.span(ps[0].start, ps[len(ps)-1].end), Kind: Word, Text: p.str[ps[0].start:ps[len(ps)-1].end]}
+		if len(ps) == 1 {
+			return s
+		}
+		s.Kind = Phrase
+		single := true // words one ASCII space apart: the source text is the name
+		for i := 1; i < len(ps); i++ {
+			single = single && ps[i].start == ps[i-1].end+1 && p.src[ps[i-1].end] == ' '
+		}
+		if !single {
+			words := make([]string, len(ps))
+			for i, pc := range ps {
+				words[i] = p.str[pc.start:pc.end]
+			}
+			s.Text = strings.Join(words, " ")
+		}
+		return s
+	}
+	if len(parts) == 1 {
+		s := build(parts[0])
+		s.Span = whole
+		return s
+	}
+	m := p.newSubstance()
+	*m = Substance{Span: whole, Kind: Mixture}
+	texts := make([]string, 0, len(parts))
+	for i, ps := range parts {
+		if len(ps) == 0 {
+			at := joins[min(i, len(joins)-1)]
+			side := "after"
+			if i < len(joins) {
+				side = "before"
+			}
+			p.errorf(at, at+1, "mixture-part", "expected a substance %s %s in a mixture; write both parts, as in 'THF/water'",
+				side, quote(badRune(p.str[at:])))
+			continue
+		}
+		part := build(ps)
+		m.Parts = append(m.Parts, part)
+		texts = append(texts, part.Text)
+	}
+	m.Text = strings.Join(texts, "/")
+	return m
+}
+
+// mixtureJoins returns the marks in a word that join the parts of a
+// mixture: an en or em dash anywhere (never in SMILES), a word that is
+// only '/', and '/' inside a word when no part holds a SMILES bond or
+// bracket character ("THF/water", but not "F/C=C/F", where '/' is a
+// double-bond stereo mark).
+func (p *parser) mixtureJoins(tk tok) []struct{ start, end int } {
+	w := p.str[tk.start:tk.end]
+	if w == "/" {
+		return []struct{ start, end int }{{tk.start, tk.end}}
+	}
+	if !strings.ContainsAny(w, "/–—") {
+		return nil
+	}
+	slashes := strings.Contains(w, "/") && !strings.ContainsAny(w, "=#@[]()\\") && !strings.EqualFold(w, "o/n") && !strings.EqualFold(w, "v/v")
+	var out []struct{ start, end int }
+	for i := 0; i < len(w); {
+		switch {
+		case w[i] == '/' && slashes:
+			out = append(out, struct{ start, end int }{tk.start + i, tk.start + i + 1})
+			i++
+		case strings.HasPrefix(w[i:], "–") || strings.HasPrefix(w[i:], "—"):
+			out = append(out, struct{ start, end int }{tk.start + i, tk.start + i + 3})
+			i += 3
+		default:
+			i++
+		}
+	}
+	return out
+}

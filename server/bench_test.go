@@ -1,0 +1,231 @@
+package server
+
+import (
+	"fmt"
+	"os"
+	"os/exec"
+	"path/filepath"
+	"runtime"
+	"sort"
+	"strconv"
+	"strings"
+	"sync"
+	"testing"
+	"time"
+
+	"go.lsp.dev/protocol"
+)
+
+// The speed targets of the language server, measured as figures (never as
+// timed tests that could fail on a slow machine). The server under test is
+// the real binary, `walden serve`, driven over its stdin and stdout by the
+// jsonrpc2 client of client_test.go, on a 5,000-line notebook page:
+//
+//	go test ./server -run XXX -bench Serve -benchtime 400x
+//
+// Figures reported per sub-benchmark: p50 and p99 latency in ms (edit →
+// published diagnostics, hover → reply, open → first diagnostics) and the
+// server process's resident memory (VmRSS and its peak VmHWM, from
+// /proc/PID/status) after the run.
+
+var (
+	buildOnce sync.Once
+	binary    string
+	buildErr  error
+)
+
+// waldenBinary builds walden once per test process, or uses $WALDEN_BIN.
+func waldenBinary(b *testing.B) string {
+	buildOnce.Do(func() {
+		if p := os.Getenv("WALDEN_BIN"); p != "" {
+			binary = p
+			return
+		}
+		dir, err := os.MkdirTemp("", "walden-bench")
+		if err != nil {
+			buildErr = err
+			return
+		}
+		binary = filepath.Join(dir, "walden")
+		out, err := exec.Command("go", "build", "-o", binary, "..").CombinedOutput()
+		if err != nil {
+			buildErr = fmt.Errorf("go build: %v\n%s", err, out)
+		}
+	})
+	if buildErr != nil {
+		b.Fatal(buildErr)
+	}
+	return binary
+}
+
+// serveProcess starts `walden serve` and returns an initialized client
+// and the process.
+func serveProcess(b *testing.B) (*testClient, *exec.Cmd) {
+	cmd := exec.Command(waldenBinary(b), "serve")
+	cmd.Stderr = os.Stderr
+	in, err := cmd.StdinPipe()
+	if err != nil {
+		b.Fatal(err)
+	}
+	out, err := cmd.StdoutPipe()
+	if err != nil {
+		b.Fatal(err)
+	}
+	if err := cmd.Start(); err != nil {
+		b.Fatal(err)
+	}
+	c := connect(b, out, in)
+	c.initialize(nil)
+	b.Cleanup(func() {
+		c.call("shutdown", nil, nil)
+		c.notify("exit", nil)
+		if err := cmd.Wait(); err != nil {
+			b.Errorf("walden serve after shutdown and exit: %v", err)
+		}
+	})
+	return c, cmd
+}
+
+// benchPage returns a Markdown page of about n lines: prose paragraphs and
+// reaction blocks with labelled steps, references to them, conditions and
+// expected products, as a long-running notebook page would hold. The steps
+// are invented, for load only.
+func benchPage(n int) (text string, stepLines []int) {
+	substrates := []string{"CCBr", "CC(C)Br", "C[C@@H](Br)CC", "CC(C)(C)Cl", "BrCc1ccccc1", "C[C@H](OS(C)(=O)=O)CCc1ccccc1", "ClCC=C", "CCCCI"}
+	reagents := []string{"NaN3", "NaCN", "NaI", "KOtBu", "NaOEt", "KSAc", "NaOMe", "DBU"}
+	solvents := []string{"DMF", "acetone", "EtOH", "DMSO", "THF", "MeOH", "MeCN", "toluene"}
+	var b strings.Builder
+	line := 0
+	add := func(s string) {
+		b.WriteString(s)
+		b.WriteByte('\n')
+		line++
+	}
+	add("# Route scouting, notebook 7")
+	for k := 0; line < n; k++ {
+		add("")
+		add(fmt.Sprintf("## Entry %d", k+1))
+		add("The substrate was dried over sieves; the reagent was weighed under nitrogen and added in portions.")
+		add("")
+		add("```reaction")
+		for j := 0; j < 8 && line < n-1; j++ {
+			i := k*8 + j
+			step := fmt.Sprintf("s%d: %s + %s (1.5 eq), %s, %d °C", i, substrates[i%len(substrates)], reagents[(i/3)%len(reagents)], solvents[(i/7)%len(solvents)], 20+i%60)
+			if j > 0 && j%3 == 0 {
+				step = fmt.Sprintf("s%d: @s%d + %s, %s, rt", i, i-1, reagents[(i/5)%len(reagents)], solvents[(i/2)%len(solvents)])
+			}
+			stepLines = append(stepLines, line)
+			add(step)
+		}
+		add("```")
+	}
+	return b.String(), stepLines
+}
+
+// percentiles returns p50 and p99 of d in milliseconds.
+func percentiles(d []time.Duration) (p50, p99 float64) {
+	if len(d) == 0 {
+		return 0, 0
+	}
+	s := append([]time.Duration(nil), d...)
+	sort.Slice(s, func(i, j int) bool { return s[i] < s[j] })
+	at := func(q float64) float64 {
+		return float64(s[min(len(s)-1, int(q*float64(len(s))))].Microseconds()) / 1000
+	}
+	return at(0.50), at(0.99)
+}
+
+// memory reads the process's resident memory in MB.
+func memory(b *testing.B, pid int) (rss, peak float64) {
+	if runtime.GOOS != "linux" {
+		return 0, 0
+	}
+	data, err := os.ReadFile(fmt.Sprintf("/proc/%d/status", pid))
+	if err != nil {
+		b.Logf("reading memory: %v", err)
+		return 0, 0
+	}
+	for _, l := range strings.Split(string(data), "\n") {
+		f := strings.Fields(l)
+		if len(f) < 2 {
+			continue
+		}
+		kb, _ := strconv.ParseFloat(f[1], 64)
+		switch f[0] {
+		case "VmRSS:":
+			rss = kb / 1024
+		case "VmHWM:":
+			peak = kb / 1024
+		}
+	}
+	return rss, peak
+}
+
+func report(b *testing.B, what string, lat []time.Duration, cmd *exec.Cmd) {
+	p50, p99 := percentiles(lat)
+	rss, peak := memory(b, cmd.Process.Pid)
+	b.ReportMetric(p50, "p50-ms")
+	b.ReportMetric(p99, "p99-ms")
+	b.ReportMetric(rss, "RSS-MB")
+	b.ReportMetric(peak, "peakRSS-MB")
+	b.ReportMetric(0, "ns/op")
+	b.Logf("%s: n=%d p50 %.3f ms, p99 %.3f ms; server RSS %.1f MB (peak %.1f MB)", what, len(lat), p50, p99, rss, peak)
+}
+
+const benchLines = 5000
+
+func BenchmarkServe(b *testing.B) {
+	text, steps := benchPage(benchLines)
+	b.Run("open", func(b *testing.B) {
+		c, cmd := serveProcess(b)
+		var lat []time.Duration
+		for i := 0; i < b.N; i++ {
+			uri := protocol.DocumentURI(fmt.Sprintf("file:///lab/open%d.md", i))
+			t0 := time.Now()
+			c.open(uri, "markdown", 1, text)
+			c.diagnosticsFor(uri, 1)
+			lat = append(lat, time.Since(t0))
+			c.notify("textDocument/didClose", &protocol.DidCloseTextDocumentParams{TextDocument: protocol.TextDocumentIdentifier{URI: uri}})
+		}
+		report(b, "open → first diagnostics", lat, cmd)
+	})
+	b.Run("edit", func(b *testing.B) {
+		c, cmd := serveProcess(b)
+		uri := protocol.DocumentURI("file:///lab/page.md")
+		c.open(uri, "markdown", 1, text)
+		c.diagnosticsFor(uri, 1)
+		var lat []time.Duration
+		for i := 0; i < b.N; i++ {
+			// Type one character into a step line, then delete it again on
+			// the next round: each edit changes one step.
+			line := uint32(steps[(i/2*37)%len(steps)])
+			at := protocol.Position{Line: line, Character: 4}
+			ch := contentChange{Range: &protocol.Range{Start: at, End: at}, Text: "C"}
+			if i%2 == 1 {
+				ch = contentChange{Range: &protocol.Range{Start: at, End: protocol.Position{Line: line, Character: 5}}}
+			}
+			v := int32(i + 2)
+			t0 := time.Now()
+			c.change(uri, v, ch)
+			c.diagnosticsFor(uri, v)
+			lat = append(lat, time.Since(t0))
+		}
+		report(b, "edit → published diagnostics", lat, cmd)
+	})
+	b.Run("hover", func(b *testing.B) {
+		c, cmd := serveProcess(b)
+		uri := protocol.DocumentURI("file:///lab/page.md")
+		c.open(uri, "markdown", 1, text)
+		c.diagnosticsFor(uri, 1)
+		var lat []time.Duration
+		for i := 0; i < b.N; i++ {
+			line := uint32(steps[(i*53)%len(steps)])
+			var h *protocol.Hover
+			t0 := time.Now()
+			c.call("textDocument/hover", &protocol.HoverParams{TextDocumentPositionParams: protocol.TextDocumentPositionParams{
+				TextDocument: protocol.TextDocumentIdentifier{URI: uri}, Position: protocol.Position{Line: line, Character: uint32(5 + i%12)}}}, &h)
+			lat = append(lat, time.Since(t0))
+		}
+		report(b, "hover", lat, cmd)
+	})
+}

@@ -1,0 +1,143 @@
+package server
+
+import (
+	"context"
+	"io"
+	"log/slog"
+	"sync"
+	"sync/atomic"
+
+	"go.lsp.dev/jsonrpc2"
+	"go.lsp.dev/protocol"
+
+	"walden/analyze"
+)
+
+// Options configure a Server.
+type Options struct {
+	// Log receives the server's own log; nil discards it. It must not
+	// write to the stream the server speaks on.
+	Log *slog.Logger
+	// Version is reported to the client in serverInfo.
+	Version string
+	// ReadFile reads files from disk (the settings file and the lab's names
+	// file); nil means os.ReadFile. Tests replace it.
+	ReadFile func(path string) ([]byte, error)
+}
+
+// Server is one language server session: one client on one stream.
+type Server struct {
+	opts Options
+	log  *slog.Logger
+	conn jsonrpc2.Conn
+
+	// world is what requests read; replaced, never changed.
+	world atomic.Pointer[world]
+
+	// mu guards the session state below. Notifications change it, in
+	// arrival order, on the connection's reading goroutine.
+	mu        sync.Mutex
+	phase     phase
+	texts     map[protocol.DocumentURI]*document  // open text documents outside notebooks
+	notebooks map[protocol.DocumentURI]*notebook  // open notebooks
+	cellOf    map[protocol.DocumentURI]*notebook  // open cell → its notebook
+	pubs      map[protocol.DocumentURI]*publisher // unit → its diagnostics publisher
+	settings  settings
+	engine    *analyze.Engine
+
+	ctx      context.Context // ends when the session ends
+	stop     context.CancelFunc
+	exited   chan struct{}
+	exitOnce sync.Once
+	requests sync.WaitGroup // requests running on their own goroutines
+	pubWG    sync.WaitGroup // publishers running
+}
+
+// phase is where the session is in the lifecycle the LSP specification
+// lays down: initialize, work, shutdown, exit.
+type phase int
+
+const (
+	starting     phase = iota // before initialize
+	running                   // after initialize
+	shuttingDown              // after shutdown: only exit is accepted
+)
+
+// New returns a Server ready to Serve one client.
+func New(opts Options) *Server {
+	log := opts.Log
+	if log == nil {
+		log = slog.New(slog.NewTextHandler(io.Discard, nil))
+	}
+	s := &Server{
+		opts:      opts,
+		log:       log,
+		texts:     map[protocol.DocumentURI]*document{},
+		notebooks: map[protocol.DocumentURI]*notebook{},
+		cellOf:    map[protocol.DocumentURI]*notebook{},
+		pubs:      map[protocol.DocumentURI]*publisher{},
+		exited:    make(chan struct{}),
+	}
+	s.engine = analyze.NewEngine(analyze.Config{})
+	s.world.Store(&world{})
+	return s
+}
+
+// Serve speaks LSP on rwc until the client sends exit or the stream ends.
+// It returns the process exit code the specification asks for: 0 when
+// exit came after shutdown, 1 otherwise (including a stream that ended
+// without exit).
+func (s *Server) Serve(ctx context.Context, rwc io.ReadWriteCloser) int {
+	s.ctx, s.stop = context.WithCancel(ctx)
+	defer s.stop()
+	st := newStream(rwc, func(err error) { s.log.Warn("bad message skipped", "err", err) })
+	s.conn = jsonrpc2.NewConn(st)
+	s.conn.Go(s.ctx, s.handler())
+	select {
+	case <-s.exited:
+		s.conn.Close()
+		<-s.conn.Done()
+	case <-s.conn.Done():
+		if err := s.conn.Err(); err != nil {
+			s.log.Info("stream ended", "err", err)
+		}
+	case <-ctx.Done():
+		s.conn.Close()
+		<-s.conn.Done()
+	}
+	s.stop()
+	s.requests.Wait()
+	s.pubWG.Wait()
+	s.mu.Lock()
+	defer s.mu.Unlock()
+	select {
+	case <-s.exited:
+		if s.phase == shuttingDown {
+			return 0
+		}
+	default:
+	}
+	return 1
+}
+
+// notify sends a notification to the client, logging a failure (the
+// client may have gone).
+func (s *Server) notify(method string, params any) {
+	if err := s.conn.Notify(context.WithoutCancel(s.ctx), method, params); err != nil {
+		s.log.Info("notification not sent", "method", method, "err", err)
+	}
+}
+
+// tell shows the client a message in its log (window/logMessage), for
+// problems with notifications, which cannot be answered with an error.
+func (s *Server) tell(typ protocol.MessageType, msg string) {
+	switch typ {
+	case protocol.MessageTypeError:
+		s.log.Error(msg)
+	case protocol.MessageTypeWarning:
+		s.log.Warn(msg)
+	default:
+		s.log.Info(msg)
+	}
+	s.notify("window/logMessage", &protocol.LogMessageParams{Type: typ, Message: "walden: " + msg})
+}
