@@ -5,6 +5,7 @@ import (
 	"sort"
 	"strings"
 
+	"walden/analyze/outcome"
 	"walden/grammar/notation"
 	"walden/grammar/source"
 )
@@ -67,7 +68,13 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 	e.applyDefaults(in)
 	pred := e.predict(in)
 	cautions := cautionsFor(in)
-	res.diags = append(res.diags, placeFindings(in, pred)...)
+	found := placeFindings(in, pred)
+	if hasCode(r.diags, CodeUnknownName) || hasCode(r.diags, CodeSMILES) {
+		// An unreadable condition may well be the solvent: "no solvent
+		// given" would mislead.
+		found = dropCode(found, string(outcome.CodeNoSolvent))
+	}
+	res.diags = append(res.diags, found...)
 	res.diags = append(res.diags, placeCautions(in, cautions)...)
 	res.diags = append(res.diags, compareProducts(in, pred)...)
 	res.fixes = stepFixes(p, in, pred)
@@ -248,6 +255,16 @@ func hasCode(ds []Diagnostic, code string) bool {
 	return false
 }
 
+func dropCode(ds []Diagnostic, code string) []Diagnostic {
+	out := ds[:0]
+	for _, d := range ds {
+		if d.Code != code {
+			out = append(out, d)
+		}
+	}
+	return out
+}
+
 // handOnFrom is what a later "@label" gets: the product the chemist wrote
 // after '->' if any, else the predicted major product; with the
 // configuration history extended by this step.
@@ -316,9 +333,12 @@ func inlayText(pred *prediction) string {
 	s := "→ " + pred.products[0].smiles
 	if c, ok := reactingChange(pred); ok {
 		n := c.atom + 1
-		if c.before != "" || c.after != "" {
-			s += fmt.Sprintf(" (%d%s→%d%s, %s)", n, orDash(c.before), n, orDash(c.after), c.outcome)
-		} else {
+		switch {
+		case c.before != "" && c.after != "":
+			s += fmt.Sprintf(" (%d%s→%d%s, %s)", n, c.before, n, c.after, c.outcome)
+		case c.before != "":
+			s += fmt.Sprintf(" (%d%s, %s)", n, c.before, c.outcome)
+		default:
 			s += " (" + c.outcome + ")"
 		}
 	}

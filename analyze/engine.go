@@ -110,23 +110,32 @@ func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) 
 	var order []*labelDef
 	for i := range srcs {
 		rep := reps[i]
+		rep.Steps = make([]StepReport, 0, len(found[i]))
+		rep.steps = make([]placedStep, 0, len(found[i]))
+		rep.Diagnostics = make([]Diagnostic, 0, len(finds[i])+len(found[i])/2)
 		rep.Diagnostics = append(rep.Diagnostics, finds[i]...)
 		for n, l := range found[i] {
 			if n%64 == 0 && ctx.Err() != nil {
 				return reps, ctx.Err()
 			}
 			ent := ents[i][n]
-			refs := map[string]*handOn{}
-			key := make([]string, 0, len(ent.refs))
-			for _, name := range ent.refs {
-				if d, ok := defined[name]; ok {
-					refs[name] = d.handOn
-					key = append(key, name+"="+d.handOn.key())
-				} else {
-					key = append(key, name+"=?")
+			var refs map[string]*handOn
+			key := ""
+			if len(ent.refs) > 0 {
+				refs = make(map[string]*handOn, len(ent.refs))
+				var kb strings.Builder
+				for _, name := range ent.refs {
+					kb.WriteString(name)
+					if d, ok := defined[name]; ok {
+						refs[name] = d.handOn
+						kb.WriteString("=" + d.handOn.key() + "\x00")
+					} else {
+						kb.WriteString("=?\x00")
+					}
 				}
+				key = kb.String()
 			}
-			res := e.result(ent, strings.Join(key, "\x00"), refs)
+			res := e.result(ent, key, refs)
 			ps := placedStep{base: l.start, span: source.Span{Start: l.start, End: l.start + source.Pos(len(l.text))}, res: res, text: l.text, nLabels: len(order)}
 			rep.steps = append(rep.steps, ps)
 			rep.Steps = append(rep.Steps, ps.report())

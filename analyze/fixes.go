@@ -2,6 +2,7 @@ package analyze
 
 import (
 	"fmt"
+	"strings"
 
 	"walden/grammar/notation"
 	"walden/grammar/source"
@@ -10,17 +11,20 @@ import (
 // chemFixes turns fixes in chemical terms into edits of the line.
 func chemFixes(in *stepInput, fs []chemFix) []Fix {
 	var out []Fix
-	for i, f := range fs {
+	for _, f := range fs {
 		var edits []Edit
 		switch f.kind {
 		case fixSwapSolvent:
-			if sp, _, ok := spanOf(in, partySolvent, f.index); ok {
+			if sp, name, ok := spanOf(in, partySolvent, f.index); ok {
+				if strings.EqualFold(name, f.text) {
+					continue
+				}
 				edits = []Edit{{Span: sp, NewText: f.text}}
 			} else {
 				edits = []Edit{appendCondition(in.parsed, f.text)}
 			}
 		case fixReplaceReagent:
-			if sp, _, ok := spanOf(in, partyReagent, f.index); ok {
+			if sp, name, ok := spanOf(in, partyReagent, f.index); ok && !strings.EqualFold(name, f.text) {
 				edits = []Edit{{Span: sp, NewText: f.text}}
 			}
 		case fixTemperature:
@@ -35,7 +39,7 @@ func chemFixes(in *stepInput, fs []chemFix) []Fix {
 		if len(edits) == 0 {
 			continue
 		}
-		out = append(out, Fix{Title: f.title, Edits: edits, Preferred: i == 0})
+		out = append(out, Fix{Title: f.title, Edits: edits, Preferred: len(out) == 0})
 	}
 	return out
 }

@@ -44,8 +44,10 @@ func stepHover(in *stepInput, pred *prediction, cs []caution.Caution, h *handOn,
 	} else if len(pred.products) > 0 {
 		p := pred.products[0]
 		fmt.Fprintf(&b, "**%s** → `%s` (major, %s)\n", pred.mechanism, p.smiles, percent(p.fraction))
+	} else if pred.mechanism == "" || pred.mechanism == "none" {
+		b.WriteString("**no reaction** predicted\n")
 	} else {
-		fmt.Fprintf(&b, "**%s**: no product predicted\n", orNone(pred.mechanism))
+		fmt.Fprintf(&b, "**%s**: no product predicted\n", pred.mechanism)
 	}
 	if len(pred.stereo) > 0 {
 		b.WriteString("\n**Configuration**\n\n")

@@ -3,6 +3,7 @@ package analyze
 import (
 	"fmt"
 	"sort"
+	"strings"
 
 	"walden/analyze/outcome"
 	"walden/grammar/notation"
@@ -48,7 +49,7 @@ func (e *Engine) predict(in *stepInput) *prediction {
 func fromOutcome(o *outcome.Outcome, solventIndex map[int]int) *prediction {
 	p := &prediction{notAnalysed: o.NotAnalysed, mechanism: string(o.Mechanism), reacting: o.Site, leaving: o.Leaving, roles: map[int]string{}}
 	for _, s := range o.Scores {
-		if s.Possible && s.Fraction > 0 {
+		if s.Possible && s.Fraction >= 0.005 { // shares that round to 0% say nothing
 			p.distribution = append(p.distribution, share{string(s.Pathway), s.Fraction})
 		}
 	}
@@ -115,39 +116,44 @@ func fromFinding(f outcome.Finding, solventIndex map[int]int) chemFinding {
 	return cf
 }
 
-// fromFix turns a fix in chemical terms into one chemFix per choice.
+// fromFix turns a fix in chemical terms into one chemFix per choice
+// (one per solvent or reagent offered; an activation step is one fix
+// whose Names are the reagents of the new step).
 func fromFix(x outcome.Fix, ps outcome.Parties, solventIndex map[int]int) []chemFix {
 	var out []chemFix
 	title := func(n string) string {
-		if x.Title != "" && len(x.Names) <= 1 {
+		if x.Title == "" {
+			return n
+		}
+		if len(x.Names) <= 1 {
 			return x.Title
 		}
-		return fmt.Sprintf("%s: %s", x.Title, n)
+		return x.Title + ": " + n
 	}
 	switch x.Kind {
 	case outcome.ReplaceSolvent:
-		idx := 0
+		idx := -1
 		if i, ok := solventIndex[ps.Solvent]; ok {
 			idx = i
 		}
 		for _, n := range x.Names {
-			out = append(out, chemFix{kind: fixSwapSolvent, title: title("use " + n), text: n, index: idx})
+			out = append(out, chemFix{kind: fixSwapSolvent, title: title(n), text: n, index: idx})
 		}
 	case outcome.ReplaceReagent:
 		for _, n := range x.Names {
-			out = append(out, chemFix{kind: fixReplaceReagent, title: title("use " + n), text: n, index: ps.Reactant})
+			out = append(out, chemFix{kind: fixReplaceReagent, title: title(n), text: n, index: ps.Reactant})
 		}
 	case outcome.ChangeTemp:
 		if len(x.Names) > 0 {
 			out = append(out, chemFix{kind: fixTemperature, title: title(x.Names[0]), text: x.Names[0]})
 		}
 	case outcome.InsertStep:
-		for _, n := range x.Names {
-			t := "activate first with " + n
-			if x.Config != "" {
-				t += " (" + x.Config + " the configuration)"
+		if len(x.Names) > 0 {
+			t := x.Title
+			if t == "" {
+				t = "activate first with " + strings.Join(x.Names, " + ")
 			}
-			out = append(out, chemFix{kind: fixActivate, title: title(t), text: n})
+			out = append(out, chemFix{kind: fixActivate, title: t, text: strings.Join(x.Names, " + ")})
 		}
 	}
 	return out

@@ -146,16 +146,25 @@ type notebookChange struct {
 
 // notebookCellsChange is the cells member of NotebookDocumentChangeEvent.
 type notebookCellsChange struct {
-	Structure *struct {
-		Array    notebookCellArrayChange           `json:"array"`
-		DidOpen  []protocol.TextDocumentItem       `json:"didOpen,omitempty"`
-		DidClose []protocol.TextDocumentIdentifier `json:"didClose,omitempty"`
-	} `json:"structure,omitempty"`
-	Data        []notebookCell `json:"data,omitempty"`
-	TextContent []struct {
-		Document protocol.VersionedTextDocumentIdentifier `json:"document"`
-		Changes  []contentChange                          `json:"changes"`
-	} `json:"textContent,omitempty"`
+	Structure   *notebookStructureChange `json:"structure,omitempty"`
+	Data        []notebookCell           `json:"data,omitempty"`
+	TextContent []cellTextChange         `json:"textContent,omitempty"`
+}
+
+// notebookStructureChange is the structure member of the cells change:
+// cells added or removed, and the text documents opened and closed with
+// them.
+type notebookStructureChange struct {
+	Array    notebookCellArrayChange           `json:"array"`
+	DidOpen  []protocol.TextDocumentItem       `json:"didOpen,omitempty"`
+	DidClose []protocol.TextDocumentIdentifier `json:"didClose,omitempty"`
+}
+
+// cellTextChange is one entry of the textContent member: edits to one
+// cell's text.
+type cellTextChange struct {
+	Document protocol.VersionedTextDocumentIdentifier `json:"document"`
+	Changes  []contentChange                          `json:"changes"`
 }
 
 // notebookCellArrayChange is NotebookCellArrayChange: replace DeleteCount

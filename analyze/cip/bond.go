@@ -9,7 +9,7 @@ import "walden/analyze/molecule"
 // (same side) or E (P-93.4.2.1). When exactly one end's ranking was
 // decided by an enantiomorphic pair the descriptor is the
 // reflection-dependent z or e.
-func (l *Labeller) labelBond(u *unit, n int32, seq []rule) (Letter, bool) {
+func (l *Labeller) labelBond(u *unit, n int32, seq *ruleSeq) (Letter, bool) {
 	g := &l.g
 	m := l.walk(u, n)
 	if m < 0 {
@@ -63,7 +63,7 @@ func (l *Labeller) labelBond(u *unit, n int32, seq []rule) (Letter, bool) {
 // the elongated tetrahedron), and reading the written winding in that
 // order gives M where a centre would be R, and P where it would be S
 // (P-93.5.7.1: Ra ≡ M, Sa ≡ P).
-func (l *Labeller) labelAxis(u *unit, n int32, seq []rule) (Letter, bool) {
+func (l *Labeller) labelAxis(u *unit, n int32, seq *ruleSeq) (Letter, bool) {
 	g := &l.g
 	m := l.walk(u, n)
 	if m < 0 {

@@ -7,7 +7,7 @@ import "walden/analyze/molecule"
 // (clockwise) or S (P-92.1.1). A lone pair ranks lowest (P-92.1.4.1).
 // Where the rules leave two pairs, or all four ligands, tied in a
 // symmetric cage, rule 6 picks a reference ligand (Hanson et al. 2018).
-func (l *Labeller) labelCentre(u *unit, n int32, seq []rule) (Letter, bool) {
+func (l *Labeller) labelCentre(u *unit, n int32, seq *ruleSeq) (Letter, bool) {
 	g := &l.g
 	g.reroot(n)
 	es := g.out(n, l.es[0][:0])
@@ -17,21 +17,21 @@ func (l *Labeller) labelCentre(u *unit, n int32, seq []rule) (Letter, bool) {
 	}
 	unique, pseudo := g.rank(n, es, true, seq)
 	if !unique {
-		if len(seq) <= len(constitutional) || len(es) != 4 {
+		if seq == constitutional || len(es) != 4 {
 			return None, true
 		}
 		switch parts := g.groups(seq, es); len(parts) {
 		case 2:
-			g.rule6 = g.nodes[g.edges[es[1]].end].atom
+			g.setRule6(g.nodes[g.edges[es[1]].end].atom)
 			unique, pseudo = g.rank(n, es, true, seq)
-			g.rule6 = -1
+			g.setRule6(-1)
 		case 1:
-			g.rule6 = g.nodes[g.edges[es[0]].end].atom
+			g.setRule6(g.nodes[g.edges[es[0]].end].atom)
 			g.rank(n, es, true, seq)
 			first := append([]int32(nil), es...)
-			g.rule6 = g.nodes[g.edges[es[1]].end].atom
+			g.setRule6(g.nodes[g.edges[es[1]].end].atom)
 			unique, pseudo = g.rank(n, es, true, seq)
-			g.rule6 = -1
+			g.setRule6(-1)
 			if odd, ok := parity(first, es); !ok || odd {
 				return None, true
 			}

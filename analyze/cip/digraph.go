@@ -70,7 +70,8 @@ type digraph struct {
 	root  int32 // current root
 	rule6 int32 // atom preferred by rule 6, -1 when none
 	limit int
-	gen   uint32 // changes whenever a cached ordering may have become stale
+	cache map[uint64][2]int32 // (node, rule sequence) → range of arena holding its ranked out edges
+	arena []int32
 }
 
 // reset starts a new digraph rooted at atom.
@@ -81,7 +82,7 @@ func (g *digraph) reset(v *view, atom int, limit int) {
 	g.kids = g.kids[:0]
 	g.rule6 = -1
 	g.limit = limit
-	g.gen++
+	g.stale()
 	z := int32(v.m.Atoms[atom].Element)
 	g.nodes = append(g.nodes, node{atom: int32(atom), up: -1, made: -1, dist: 1, zNum: z, zDen: 1, first: -1, last: -1})
 	g.root = 0
@@ -232,30 +233,31 @@ func (g *digraph) reroot(n int32) {
 	if n == g.root {
 		return
 	}
-	cur := n
+	cur, last := n, int32(-1)
 	for {
-		in := g.inEdge(cur)
+		in := g.inEdge(cur, last)
 		if in < 0 {
 			break
 		}
+		last = in
 		p := g.edges[in].beg
 		g.edges[in].beg, g.edges[in].end = g.edges[in].end, g.edges[in].beg
 		cur = p
 	}
 	g.root = n
-	g.gen++
+	g.stale()
 }
 
-// inEdge returns the edge that ends at n, or -1 at the root. Only the
-// edge that made n and the edges n made can touch it.
-func (g *digraph) inEdge(n int32) int32 {
+// inEdge returns the edge other than except that ends at n, or -1 at
+// the root. Only the edge that made n and the edges n made can touch it.
+func (g *digraph) inEdge(n, except int32) int32 {
 	nd := &g.nodes[n]
-	if nd.made >= 0 && g.edges[nd.made].end == n {
+	if nd.made >= 0 && nd.made != except && g.edges[nd.made].end == n {
 		return nd.made
 	}
 	if nd.flags&expanded != 0 {
 		for _, e := range g.kids[nd.first:nd.last] {
-			if g.edges[e].end == n {
+			if e != except && g.edges[e].end == n {
 				return e
 			}
 		}
@@ -286,4 +288,10 @@ type view struct {
 	m       *molecule.Molecule
 	fracNum []int32 // averaged atomic number of mancude duplicates made on each atom
 	fracDen []int32
+}
+
+// setRule6 makes atom the reference of rule 6 (-1 for none).
+func (g *digraph) setRule6(atom int32) {
+	g.rule6 = atom
+	g.stale()
 }

@@ -103,13 +103,13 @@ func (l *Labeller) labelUnit(i int) (d Letter, err error) {
 	}
 	l.setAux(i)
 	g.reroot(0)
-	d, _ = l.labelAt(u, 0, sequence)
+	d, _ = l.labelAt(u, 0, allRules)
 	return d, nil
 }
 
 // labelAt labels unit u at node n of the current digraph with the rules
 // of seq. tied reports that the ligands could not all be told apart.
-func (l *Labeller) labelAt(u *unit, n int32, seq []rule) (d Letter, tied bool) {
+func (l *Labeller) labelAt(u *unit, n int32, seq *ruleSeq) (d Letter, tied bool) {
 	switch u.kind {
 	case centre:
 		return l.labelCentre(u, n, seq)
@@ -165,13 +165,13 @@ func (l *Labeller) setAux(i int) {
 			pending = pending[:0]
 			prev = d
 		}
-		d, _ := l.labelAt(&l.units[jb.u], jb.n, sequence)
+		d, _ := l.labelAt(&l.units[jb.u], jb.n, allRules)
 		pending = append(pending, result{jb.n, d})
 	}
 	for _, p := range pending {
 		g.nodes[p.n].aux = p.d
 	}
-	g.gen++
+	g.stale()
 }
 
 // walk follows u's chain of atoms from node n (a node of either end) to

@@ -11,6 +11,32 @@ import (
 //go:embed masses.tsv
 var massesTSV string
 
+//go:embed isotopes.tsv
+var isotopesTSV string
+
+// nuclideMass holds the atomic mass of single nuclides, keyed by atomic
+// number and mass number.
+var nuclideMass = func() map[[2]int]float64 {
+	out := make(map[[2]int]float64)
+	for i, line := range strings.Split(isotopesTSV, "\n") {
+		if line == "" || line[0] == '#' || strings.HasPrefix(line, "symbol\t") {
+			continue
+		}
+		f := strings.Split(line, "\t")
+		if len(f) != 4 {
+			panic("cip: isotopes.tsv line " + strconv.Itoa(i+1) + ": want 4 columns")
+		}
+		e, ok := molecule.ElementBySymbol(f[0])
+		a, err1 := strconv.Atoi(f[1])
+		v, err2 := strconv.ParseFloat(f[2], 64)
+		if !ok || err1 != nil || err2 != nil {
+			panic("cip: isotopes.tsv line " + strconv.Itoa(i+1) + ": bad row")
+		}
+		out[[2]int{int(e), a}] = v
+	}
+	return out
+}()
+
 // standardWeight holds, by atomic number, the standard atomic weight of
 // an element of natural isotopic composition; 0 where none is tabulated.
 var standardWeight = func() [molecule.MaxElement + 1]float64 {

@@ -10,18 +10,15 @@ type pairList []Letter
 // fillPairs explores the branch from n breadth-first, ordering each
 // node's children by seq (the sequence with the stand-in rule for ref),
 // and lists the descriptors met.
-func (g *digraph) fillPairs(n int32, ref Letter, seq []rule) pairList {
+func (g *digraph) fillPairs(n int32, ref Letter, seq *ruleSeq) pairList {
 	list := pairList{ref}
 	queue := []int32{n}
-	var es []int32
 	for i := 0; i < len(queue); i++ {
 		x := queue[i]
 		if c := refLetter(g.nodes[x].aux); c != None {
 			list = append(list, c)
 		}
-		es = g.out(x, es[:0])
-		g.rank(x, es, true, seq)
-		for _, e := range es {
+		for _, e := range g.sortedOut(x, seq) {
 			if end := g.edges[e].end; !g.terminal(end) {
 				queue = append(queue, end)
 			}

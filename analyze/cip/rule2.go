@@ -4,10 +4,12 @@ package cip
 //
 //	"Higher atomic mass number precedes lower."
 //
-// An atom written with a mass number ([2H], [13C]) counts with that
-// number; an atom of natural isotopic composition counts with the
-// standard atomic weight of its element (masses.tsv), so that [2H] ranks
-// above H and H above [1H] (P-92.3, Hanson et al. 2018). Where neither
+// An atom written with a mass number ([2H], [13C]) counts with the atomic
+// mass of that nuclide (isotopes.tsv; its mass number where the table has
+// none); an atom of natural isotopic composition counts with the standard
+// atomic weight of its element (masses.tsv). So [2H] ranks above H, H
+// above [1H], and O (15.999) above [16O] (15.995), as the CIP validation
+// suite of Hanson et al. 2018 expects (entry VS176). Where neither
 // node has a stated mass number the rule has nothing to say: equal
 // elements have equal weights, and a mancude duplicate must not be ranked
 // by the Kekulé structure that happened to make it.
@@ -39,11 +41,15 @@ func (g *digraph) isotope(n *node) int {
 }
 
 func (g *digraph) mass(n *node, isotope int) float64 {
-	if isotope > 0 {
-		return float64(isotope)
-	}
 	if n.atom < 0 {
 		return standardWeight[1]
 	}
-	return standardWeight[g.mol.m.Atoms[n.atom].Element]
+	e := g.mol.m.Atoms[n.atom].Element
+	if isotope > 0 {
+		if m, ok := nuclideMass[[2]int{int(e), isotope}]; ok {
+			return m
+		}
+		return float64(isotope)
+	}
+	return standardWeight[e]
 }

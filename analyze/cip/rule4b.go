@@ -22,10 +22,13 @@ func compare4b(g *digraph, ref Letter, a, b int32) int {
 	x, y := g.edges[a].end, g.edges[b].end
 	ra := g.references(x)
 	rb := g.references(y)
-	if len(ra) == 0 || len(ra) != len(rb) {
+	if len(ra) == 0 || len(rb) == 0 {
 		return 0
 	}
-	if len(ra) == 1 {
+	// A branch whose first descriptor set is evenly split has two
+	// candidate references; against a branch with a single one, R is
+	// taken, as in the reference implementation of Hanson et al.
+	if len(ra) == 1 || len(rb) == 1 {
 		return g.likeFirst(x, y, ra[0], rb[0])
 	}
 	la := make([]pairList, len(ra))
@@ -58,7 +61,7 @@ func sortLists(ls []pairList) {
 // nodes, sphere by sphere, that carries any.
 func (g *digraph) references(n int32) []Letter {
 	level := [][]int32{{n}}
-	seq := sequence[:rule4b+1]
+	seq := prefixes[rule4b]
 	var es []int32
 	for len(level) > 0 {
 		for _, set := range level {
@@ -86,12 +89,11 @@ func (g *digraph) references(n int32) []Letter {
 			var parts [][][]int32
 			for _, x := range set {
 				es = es[:0]
-				for _, e := range g.out(x, nil) {
+				for _, e := range g.sortedOut(x, seq) {
 					if !g.terminal(g.edges[e].end) {
 						es = append(es, e)
 					}
 				}
-				g.rank(x, es, true, seq)
 				parts = append(parts, g.groups(seq, es))
 			}
 			for i := 0; ; i++ {
@@ -126,7 +128,6 @@ func (g *digraph) likeFirst(x, y int32, refX, refY Letter) int {
 	seqY := withRef(rule4b, refY)
 	qx := []int32{x}
 	qy := []int32{y}
-	var es []int32
 	for pos := 0; pos < len(qx) && pos < len(qy); pos++ {
 		a, b := qx[pos], qy[pos]
 		da, db := refLetter(g.nodes[a].aux), refLetter(g.nodes[b].aux)
@@ -136,16 +137,12 @@ func (g *digraph) likeFirst(x, y int32, refX, refY Letter) int {
 		if da != refX && db == refY {
 			return -1
 		}
-		es = g.out(a, es[:0])
-		g.rank(a, es, true, seqX)
-		for _, e := range es {
+		for _, e := range g.sortedOut(a, seqX) {
 			if end := g.edges[e].end; !g.terminal(end) {
 				qx = append(qx, end)
 			}
 		}
-		es = g.out(b, es[:0])
-		g.rank(b, es, true, seqY)
-		for _, e := range es {
+		for _, e := range g.sortedOut(b, seqY) {
 			if end := g.edges[e].end; !g.terminal(end) {
 				qy = append(qy, end)
 			}

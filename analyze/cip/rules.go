@@ -23,35 +23,58 @@ type rule struct {
 	ref Letter
 }
 
+// ruleSeq is a list of rules applied in turn, with an identity so that
+// orderings made with it can be cached.
+type ruleSeq struct {
+	id    uint8
+	rules []rule
+}
+
 // sequence lists the rules in the order they are applied: the
 // constitutional rules 1a, 1b and 2 first, then the stereo rules (P-92.1.3).
 var sequence = []rule{{rule1a, None}, {rule1b, None}, {rule2, None}, {rule3, None},
 	{rule4a, None}, {rule4b, None}, {rule4c, None}, {rule5, None}, {rule6, None}}
 
-// constitutional is the prefix of sequence that needs no auxiliary
-// descriptors.
-var constitutional = sequence[:3]
+// prefixes[i] is sequence[:i+1]: rule i and the rules before it, the
+// order in which rule i explores its branches.
+var prefixes = func() []*ruleSeq {
+	p := make([]*ruleSeq, len(sequence))
+	for i := range p {
+		p[i] = &ruleSeq{uint8(i), sequence[: i+1 : i+1]}
+	}
+	return p
+}()
+
+var (
+	// constitutional needs no auxiliary descriptors.
+	constitutional = prefixes[rule2]
+	// allRules is the whole sequence.
+	allRules = prefixes[rule6]
+)
 
 // Rules 4b and 5 with a reference descriptor: alone (the way such a rule
 // explores its own branches) and in place of the plain rule at the end of
 // the sequence that orders branches while descriptor lists are built.
 var (
-	only4bR = []rule{{rule4b, R}}
-	only4bS = []rule{{rule4b, S}}
-	only5R  = []rule{{rule5, R}}
-	only5S  = []rule{{rule5, S}}
-	with4bR = append(append([]rule(nil), sequence[:5]...), rule{rule4b, R})
-	with4bS = append(append([]rule(nil), sequence[:5]...), rule{rule4b, S})
-	with5R  = append(append([]rule(nil), sequence[:7]...), rule{rule5, R})
-	with5S  = append(append([]rule(nil), sequence[:7]...), rule{rule5, S})
+	only4bR = &ruleSeq{9, []rule{{rule4b, R}}}
+	only4bS = &ruleSeq{10, []rule{{rule4b, S}}}
+	only5R  = &ruleSeq{11, []rule{{rule5, R}}}
+	only5S  = &ruleSeq{12, []rule{{rule5, S}}}
+	with4bR = &ruleSeq{13, append(append([]rule(nil), sequence[:5]...), rule{rule4b, R})}
+	with4bS = &ruleSeq{14, append(append([]rule(nil), sequence[:5]...), rule{rule4b, S})}
+	with5R  = &ruleSeq{15, append(append([]rule(nil), sequence[:7]...), rule{rule5, R})}
+	with5S  = &ruleSeq{16, append(append([]rule(nil), sequence[:7]...), rule{rule5, S})}
 )
+
+// numSeqs counts the distinct rule sequences, for the ordering cache.
+const numSeqs = 17
 
 // explorer returns the rules that order the branches while rule r is
 // explored sphere by sphere: r and the rules before it.
-func explorer(r rule) []rule {
+func explorer(r rule) *ruleSeq {
 	switch {
 	case r.ref == None:
-		return sequence[:r.id+1]
+		return prefixes[r.id]
 	case r.id == rule4b && r.ref == R:
 		return only4bR
 	case r.id == rule4b:
@@ -64,7 +87,7 @@ func explorer(r rule) []rule {
 
 // withRef returns the sequence up to rule id (4b or 5) with that rule
 // replaced by its form relative to ref.
-func withRef(id ruleID, ref Letter) []rule {
+func withRef(id ruleID, ref Letter) *ruleSeq {
 	switch {
 	case id == rule4b && ref == R:
 		return with4bR
@@ -120,12 +143,14 @@ func (g *digraph) explore(r rule, a, b int32) int {
 	qa := []int32{a}
 	qb := []int32{b}
 	var as, bs []int32
+	var sa, sb []int32
 	for pos := 0; pos < len(qa) && pos < len(qb); pos++ {
 		na, nb := g.edges[qa[pos]].end, g.edges[qb[pos]].end
-		as = g.out(na, as[:0])
-		bs = g.out(nb, bs[:0])
-		g.rank(na, as, false, seq)
-		g.rank(nb, bs, false, seq)
+		sa = g.out(na, sa[:0])
+		sb = g.out(nb, sb[:0])
+		g.rank(na, sa, false, seq)
+		g.rank(nb, sb, false, seq)
+		as, bs = sa, sb
 		for i := 0; i < len(as) && i < len(bs); i++ {
 			if g.nodes[g.edges[as[i]].end].zNum == 0 || g.nodes[g.edges[bs[i]].end].zNum == 0 {
 				return 0
@@ -137,8 +162,8 @@ func (g *digraph) explore(r rule, a, b int32) int {
 		if len(as) != len(bs) {
 			return sign(len(as) - len(bs))
 		}
-		g.rank(na, as, true, seq)
-		g.rank(nb, bs, true, seq)
+		as = g.sortedOut(na, seq)
+		bs = g.sortedOut(nb, seq)
 		for i := range as {
 			if g.nodes[g.edges[as[i]].end].zNum == 0 || g.nodes[g.edges[bs[i]].end].zNum == 0 {
 				return 0
@@ -155,8 +180,8 @@ func (g *digraph) explore(r rule, a, b int32) int {
 
 // ligands compares two edges leaving the same node by every rule of seq
 // in turn; deep explores each rule over the whole digraph.
-func (g *digraph) ligands(seq []rule, a, b int32, deep bool) int {
-	for _, r := range seq {
+func (g *digraph) ligands(seq *ruleSeq, a, b int32, deep bool) int {
+	for _, r := range seq.rules {
 		var c int
 		if deep {
 			c = g.explore(r, a, b)
@@ -174,7 +199,7 @@ func (g *digraph) ligands(seq []rule, a, b int32, deep bool) int {
 // reports whether every ligand was told apart, and whether exactly one
 // comparison was decided by an enantiomorphic pair (rule 5), which makes
 // the unit pseudo-asymmetric.
-func (g *digraph) rank(n int32, es []int32, deep bool, seq []rule) (unique, pseudo bool) {
+func (g *digraph) rank(n int32, es []int32, deep bool, seq *ruleSeq) (unique, pseudo bool) {
 	unique = true
 	enantio := 0
 	for i := 1; i < len(es); i++ {
@@ -197,7 +222,7 @@ func (g *digraph) rank(n int32, es []int32, deep bool, seq []rule) (unique, pseu
 }
 
 // groups splits ranked edges into runs that seq cannot tell apart.
-func (g *digraph) groups(seq []rule, es []int32) [][]int32 {
+func (g *digraph) groups(seq *ruleSeq, es []int32) [][]int32 {
 	var out [][]int32
 	for i, e := range es {
 		if i == 0 || g.ligands(seq, es[i-1], e, true) != 0 {
@@ -206,4 +231,31 @@ func (g *digraph) groups(seq []rule, es []int32) [][]int32 {
 		out[len(out)-1] = append(out[len(out)-1], e)
 	}
 	return out
+}
+
+// sortedOut returns the edges leaving n ranked highest first by seq over
+// the whole digraph. The ordering is cached until the root, an auxiliary
+// descriptor or the rule 6 reference changes; the slice must not be
+// modified.
+func (g *digraph) sortedOut(n int32, seq *ruleSeq) []int32 {
+	key := uint64(n)*numSeqs + uint64(seq.id)
+	if s, ok := g.cache[key]; ok {
+		return g.arena[s[0]:s[1]:s[1]]
+	}
+	es := g.out(n, nil)
+	g.rank(n, es, true, seq)
+	start := int32(len(g.arena))
+	g.arena = append(g.arena, es...)
+	if g.cache == nil {
+		g.cache = make(map[uint64][2]int32)
+	}
+	g.cache[key] = [2]int32{start, int32(len(g.arena))}
+	return es
+}
+
+// stale forgets cached orderings after the root, an auxiliary descriptor
+// or the rule 6 reference changed.
+func (g *digraph) stale() {
+	clear(g.cache)
+	g.arena = g.arena[:0]
 }

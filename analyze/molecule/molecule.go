@@ -110,14 +110,44 @@ type Molecule struct {
 	CisTrans    []CisTrans
 	Axial       []Axial
 
-	adj [][]Edge
+	adj  [][]Edge
+	slab []Edge // backing store handing out adjacency lists of 4
 }
 
 // AddAtom appends a and returns its index.
 func (m *Molecule) AddAtom(a Atom) int {
 	m.Atoms = append(m.Atoms, a)
-	m.adj = append(m.adj, nil)
+	// Adjacency lists come four at a time from a shared slab, so reading
+	// a molecule costs a few allocations rather than several per atom;
+	// an atom with more than four bonds grows its own list.
+	if cap(m.slab)-len(m.slab) < 4 {
+		m.slab = make([]Edge, 0, 64)
+	}
+	k := len(m.slab)
+	m.slab = m.slab[:k+4]
+	m.adj = append(m.adj, m.slab[k:k:k+4])
 	return len(m.Atoms) - 1
+}
+
+// Grow reserves room for atoms and bonds more atoms and bonds, so that a
+// reader that knows the size in advance allocates once.
+func (m *Molecule) Grow(atoms, bonds int) {
+	if cap(m.Atoms)-len(m.Atoms) < atoms {
+		a := make([]Atom, len(m.Atoms), len(m.Atoms)+atoms)
+		copy(a, m.Atoms)
+		m.Atoms = a
+		j := make([][]Edge, len(m.adj), len(m.adj)+atoms)
+		copy(j, m.adj)
+		m.adj = j
+		if cap(m.slab)-len(m.slab) < 4*atoms {
+			m.slab = make([]Edge, 0, 4*atoms)
+		}
+	}
+	if cap(m.Bonds)-len(m.Bonds) < bonds {
+		b := make([]Bond, len(m.Bonds), len(m.Bonds)+bonds)
+		copy(b, m.Bonds)
+		m.Bonds = b
+	}
 }
 
 // AddBond appends b, records it in both atoms' adjacency lists and returns

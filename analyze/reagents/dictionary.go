@@ -58,7 +58,7 @@ var (
 )
 
 // Builtin returns the dictionary of the embedded tables, parsed on first
-// use (reading the tables takes well under a millisecond).
+// use (a few milliseconds; nothing runs at package initialisation).
 func Builtin() *Dictionary {
 	builtinOnce.Do(func() {
 		bt := loadTables()
@@ -120,31 +120,42 @@ func (d *Dictionary) entry(r ref) Entry {
 // the same kind claim one name, the later one keeps it (a lab entry wins
 // over a built-in one; Load reports real clashes before calling build).
 func build(reagents []*Reagent, solvents []*Solvent) *Dictionary {
+	n := 0
+	for _, g := range reagents {
+		n += len(g.Names)
+	}
+	for _, s := range solvents {
+		n += len(s.Names)
+	}
 	d := &Dictionary{
 		reagents: reagents,
 		solvents: solvents,
-		exact:    map[string]ref{},
-		folded:   map[string]ref{},
+		exact:    make(map[string]ref, n),
+		folded:   make(map[string]ref, n),
+		names:    make([]nameRec, 0, n),
 	}
-	texts := map[string]string{} // exact key → first spelling seen
+	at := make(map[string]int, n) // exact key → index in d.names
 	add := func(name string, ri, si int32) {
 		var buf [maxKey]byte
 		k, ok := normalize(buf[:0], name, false)
 		if !ok || len(k) == 0 {
 			return
 		}
-		key := string(k)
-		r := d.exact[key]
+		r := d.exact[string(k)]
 		if ri > 0 {
 			r.r = ri
 		}
 		if si > 0 {
 			r.s = si
 		}
-		d.exact[key] = r
-		if _, seen := texts[key]; !seen {
-			texts[key] = name
+		if i, seen := at[string(k)]; seen {
+			d.names[i].ref = r
+		} else {
+			key := string(k)
+			at[key] = len(d.names)
+			d.names = append(d.names, nameRec{text: name, key: foldASCII(key), ref: r})
 		}
+		d.exact[string(k)] = r
 	}
 	for i, g := range reagents {
 		for _, n := range g.Names {
@@ -156,21 +167,15 @@ func build(reagents []*Reagent, solvents []*Solvent) *Dictionary {
 			add(n, 0, int32(i+1))
 		}
 	}
-	// The folded index: a folded key reached from two exact keys that
-	// stand for different things is ambiguous.
-	for key, r := range d.exact {
-		fk, _ := normalize(nil, key, true)
-		f := string(fk)
-		if old, ok := d.folded[f]; ok && (old.r != r.r || old.s != r.s) {
+	// The folded index: a folded key reached from names that stand for
+	// different things is ambiguous.
+	for _, rec := range d.names {
+		if old, ok := d.folded[rec.key]; ok && (old.r != rec.ref.r || old.s != rec.ref.s) {
 			old.ambiguous = true
-			d.folded[f] = old
+			d.folded[rec.key] = old
 			continue
 		}
-		d.folded[f] = r
-	}
-	for key, r := range d.exact {
-		fk, _ := normalize(nil, key, true)
-		d.names = append(d.names, nameRec{text: texts[key], key: string(fk), ref: r})
+		d.folded[rec.key] = rec.ref
 	}
 	sort.Slice(d.names, func(i, j int) bool {
 		a, b := d.names[i], d.names[j]
@@ -180,4 +185,21 @@ func build(reagents []*Reagent, solvents []*Solvent) *Dictionary {
 		return a.text < b.text
 	})
 	return d
+}
+
+// foldASCII lower-cases the ASCII letters of a key (keys are already
+// normalised, so this equals normalising with fold).
+func foldASCII(s string) string {
+	for i := 0; i < len(s); i++ {
+		if 'A' <= s[i] && s[i] <= 'Z' {
+			b := []byte(s)
+			for j := i; j < len(b); j++ {
+				if 'A' <= b[j] && b[j] <= 'Z' {
+					b[j] += 'a' - 'A'
+				}
+			}
+			return string(b)
+		}
+	}
+	return s
 }

@@ -93,6 +93,10 @@ type labParser struct {
 }
 
 func (p *labParser) errorf(at span, format string, args ...any) {
+	// A mark one past the end of the text (a value missing at the very
+	// end) becomes an empty mark at the end.
+	at.end = min(at.end, len(p.text))
+	at.start = min(at.start, at.end)
 	line := 1 + strings.Count(p.text[:at.start], "\n")
 	col := at.start - strings.LastIndexByte(p.text[:at.start], '\n')
 	p.errs = append(p.errs, &Error{
@@ -236,7 +240,11 @@ func (p *labParser) names(l string, i, base int, term byte) ([]labName, int, boo
 				if j < len(l) {
 					what = fmt.Sprintf("'%c'", l[j])
 				}
-				p.errorf(span{base + i, base + max(j, i+1)}, "expected a name, found %s", what)
+				end := j
+				if j < len(l) {
+					end = j + 1
+				}
+				p.errorf(span{base + i, base + end}, "expected a name, found %s", what)
 				return nil, j, false
 			}
 			out = append(out, labName{text, span{base + i, base + i + len(text)}})

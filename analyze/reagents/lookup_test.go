@@ -183,7 +183,7 @@ func TestRoleAndBulkWords(t *testing.T) {
 			t.Errorf("role %q round-trips to %q", w, r)
 		}
 	}
-	if (Nucleophile | Base).String() != "nucleophile, base" || Role(0).String() != "none" {
+	if (Nucleophile|Base).String() != "nucleophile, base" || Role(0).String() != "none" {
 		t.Error("Role.String")
 	}
 	for _, w := range []string{"small", "moderate", "hindered"} {
@@ -193,5 +193,37 @@ func TestRoleAndBulkWords(t *testing.T) {
 	}
 	if _, ok := ParseBulk("huge"); ok {
 		t.Error("ParseBulk accepted huge")
+	}
+}
+
+// Mixtures are estimated from their components; the checks here are of
+// the estimate's stated rules, with the component data from the tables.
+func TestMixture(t *testing.T) {
+	thf, _ := Lookup("THF")
+	water, _ := Lookup("water")
+	acetone, _ := Lookup("acetone")
+	m := Mixture([]*Solvent{thf.Solvent, water.Solvent}, []float64{1, 1})
+	if !m.Protic || m.Class != ClassPolarProtic || m.BoilingC.V != 66 {
+		t.Errorf("THF/water 1:1: %+v", m)
+	}
+	if want := (7.58 + 78.36) / 2; m.Dielectric.V < want-0.01 || m.Dielectric.V > want+0.01 {
+		t.Errorf("THF/water 1:1 dielectric %v, want %v", m.Dielectric.V, want)
+	}
+	if !strings.Contains(m.Dielectric.Source, "estimate") || m.Name() != "THF/water 1:1" {
+		t.Errorf("mixture name %q, source %q", m.Name(), m.Dielectric.Source)
+	}
+	if !m.HasHazard(HazardPeroxideFormer) {
+		t.Error("a mixture keeps its components' hazards")
+	}
+	// 20:1 acetone–water: under a tenth of water, still counted aprotic.
+	m = Mixture([]*Solvent{acetone.Solvent, water.Solvent}, []float64{20, 1})
+	if m.Protic || m.Class != ClassPolarAprotic {
+		t.Errorf("acetone/water 20:1: protic %v, class %s", m.Protic, m.Class)
+	}
+	if Mixture(nil, nil) != nil || Mixture([]*Solvent{thf.Solvent}, []float64{0}) != nil {
+		t.Error("empty mixtures should be nil")
+	}
+	if m := Mixture([]*Solvent{thf.Solvent, water.Solvent}, nil); m == nil || m.Name() != "THF/water 1:1" {
+		t.Errorf("equal parts by default: %v", m)
 	}
 }

@@ -1,6 +1,8 @@
 package smiles
 
 import (
+	"sync"
+
 	"walden/analyze/molecule"
 )
 
@@ -23,9 +25,17 @@ func Canonical(m *molecule.Molecule) string {
 	if m == nil || len(m.Atoms) == 0 {
 		return ""
 	}
-	c := newCanon(m)
-	return c.run()
+	c := canonPool.Get().(*canon)
+	c.init(m)
+	s := c.run()
+	c.m, c.w.m = nil, nil
+	canonPool.Put(c)
+	return s
 }
+
+// canonPool keeps the working buffers of Canonical between calls, so the
+// stereo command's stream of small molecules allocates little.
+var canonPool = sync.Pool{New: func() any { return &canon{w: &writer{}} }}
 
 // SearchBudget bounds the tie-breaking search of Canonical, in atoms
 // ranked (partial orders tried times atoms). Molecules needing more
@@ -46,18 +56,24 @@ type canon struct {
 	sigOff  []int32
 	order   []int32
 	tmp     []int32
+	rank    []int32
 	best    string
 	found   bool
 	budget  int
 }
 
-func newCanon(m *molecule.Molecule) *canon {
+func (c *canon) init(m *molecule.Molecule) {
 	n := len(m.Atoms)
-	c := &canon{m: m, budget: SearchBudget}
-	c.w = newWriter(m, true)
-	c.inv = make([]uint64, n)
-	c.relev = make([]bool, n)
-	c.nbStart = make([]int32, n+1)
+	c.m = m
+	c.budget = SearchBudget
+	c.best, c.found = "", false
+	c.w.init(m, true)
+	if cap(c.inv) < n {
+		c.inv = make([]uint64, n)
+	}
+	c.inv = c.inv[:n]
+	c.relev = resizeBool(c.relev, n)
+	c.nbStart = resizeInt32(c.nbStart, n+1, 0)
 	for i := range n {
 		a := m.Atoms[i]
 		arom := uint64(0)
@@ -72,8 +88,8 @@ func newCanon(m *molecule.Molecule) *canon {
 		c.inv[i] = d<<58 | uint64(a.Element&127)<<51 | iso<<39 | q<<32 | h<<27 | arom<<26 | cls
 		c.nbStart[i+1] = c.nbStart[i] + int32(m.Degree(i))
 	}
-	c.nbAtom = make([]int32, c.nbStart[n])
-	c.nbCode = make([]int32, c.nbStart[n])
+	c.nbAtom = resizeInt32(c.nbAtom, int(c.nbStart[n]), 0)
+	c.nbCode = resizeInt32(c.nbCode, int(c.nbStart[n]), 0)
 	for i := range n {
 		k := c.nbStart[i]
 		for _, e := range m.Edges(i) {
@@ -115,17 +131,16 @@ func newCanon(m *molecule.Molecule) *canon {
 			mark(r)
 		}
 	}
-	c.stereo = make([]int32, n)
-	c.sig = make([]int64, 0, 2*n+len(c.nbAtom))
-	c.sigOff = make([]int32, n+1)
-	c.order = make([]int32, n)
-	c.tmp = make([]int32, n)
-	return c
+	c.stereo = resizeInt32(c.stereo, n, 0)
+	c.sig = c.sig[:0]
+	c.sigOff = resizeInt32(c.sigOff, n+1, 0)
+	c.order = resizeInt32(c.order, n, 0)
+	c.tmp = resizeInt32(c.tmp, n, 0)
+	c.rank = resizeInt32(c.rank, n, 0)
 }
 
 func (c *canon) run() string {
-	n := len(c.m.Atoms)
-	rank := make([]int32, n)
+	rank := c.rank
 	// Initial ranks from the invariants.
 	for i := range c.order {
 		c.order[i] = int32(i)

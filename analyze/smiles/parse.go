@@ -27,6 +27,16 @@ func Parse(s string) (*molecule.Molecule, error) {
 			"SMILES of %d bytes is longer than the limit of %d; split the structure or check that this is one SMILES", len(s), MaxLength))
 		return nil, p.errs
 	}
+	// Size the molecule once: no more atoms than letters and '*'.
+	letters := 0
+	for i := 0; i < len(s); i++ {
+		if c := s[i]; c >= 'A' && c <= 'Z' || c >= 'a' && c <= 'z' || c == '*' {
+			letters++
+		}
+	}
+	letters = min(letters, MaxAtoms)
+	p.m.Grow(letters, letters+4)
+	p.notes = make([]bondNote, 0, letters+4)
 	p.read()
 	if len(p.errs) == 0 || !p.stopped {
 		p.kekulise()
@@ -40,9 +50,11 @@ func Parse(s string) (*molecule.Molecule, error) {
 // bondNote is what the reader keeps about a bond beyond molecule.Bond.
 type bondNote struct {
 	// keyA and keyB order the bond among the neighbours of A and of B as
-	// OpenSMILES reads them for stereo: the bond to the preceding atom
-	// first (-1), then an implicit hydrogen (the atom's own offset), then
-	// ring closures and branches by the offset where they are written.
+	// OpenSMILES reads them for stereo, by twice the offset where the bond
+	// is written: the bond from the preceding atom comes before the atom,
+	// an implicit hydrogen at the atom's own offset, ring closures and
+	// branches after it. One scale for all atoms, so the neighbours of
+	// both ends of an allene can be ordered together.
 	keyA, keyB int
 	// dir is +1 for '/' and -1 for '\', read as "A dir B".
 	dir int8
@@ -592,15 +604,21 @@ func (p *parser) chainBond(a, b int, sym byte, span molecule.Span) {
 		span = molecule.Span{Start: p.m.Atoms[b].Span.Start, End: p.m.Atoms[b].Span.Start}
 	}
 	p.m.AddBond(molecule.Bond{A: a, B: b, Order: order, Aromatic: arom, Span: span})
-	p.notes = append(p.notes, bondNote{keyA: span.Start, keyB: -1, dir: dirOf(sym)})
+	// Keys are twice the byte offset, so an implicit bond can sit between
+	// the preceding character and the atom it leads to.
+	key := 2 * span.Start
+	if sym == 0 {
+		key--
+	}
+	p.notes = append(p.notes, bondNote{keyA: key, keyB: key, dir: dirOf(sym)})
 }
 
 // ring opens or closes ring-closure label at atom.
 func (p *parser) ring(atom, label int, sym byte, sspan, digit molecule.Span) {
 	r := &p.rings[label]
-	key := digit.Start
+	key := 2 * digit.Start
 	if sym != 0 {
-		key = sspan.Start
+		key = 2 * sspan.Start
 	}
 	if r.atom < 0 {
 		*r = ringOpen{atom: atom, sym: sym, sspan: sspan, digit: digit}
@@ -621,9 +639,9 @@ func (p *parser) ring(atom, label int, sym byte, sspan, digit molecule.Span) {
 		p.errorf(span.Start, span.End, "ring closure %s joins two atoms that are already bonded; remove it", ringName(label))
 		return
 	}
-	okey := rdigit.Start
+	okey := 2 * rdigit.Start
 	if rs != 0 {
-		okey = rsspan.Start
+		okey = 2 * rsspan.Start
 	}
 	d1, d2 := dirOf(rs), dirOf(sym)
 	dir := d1

@@ -61,12 +61,12 @@ func (p *parser) centre(c chiralMark) {
 		if len(refs) == len(buf) {
 			break
 		}
-		refs = append(refs, ref{a.Span.Start, molecule.Implicit})
+		refs = append(refs, ref{2 * a.Span.Start, molecule.Implicit})
 	}
 	total := m.Degree(i) + a.ImplicitH
 	if total == 3 && hasLonePair(a) {
 		// A lone pair stands where an implicit hydrogen would.
-		refs = append(refs, ref{a.Span.Start, molecule.Implicit})
+		refs = append(refs, ref{2 * a.Span.Start, molecule.Implicit})
 	}
 	if total != 4 && !(total == 3 && hasLonePair(a)) || len(refs) != 4 {
 		p.errorf(c.span.Start, c.span.End, "found '%s' on an atom with %d neighbours (hydrogens included); tetrahedral stereo needs 4, or 3 and a lone pair, and allene stereo a central atom with two double bonds; drop the mark", p.src[c.span.Start:c.span.End], total)
@@ -151,7 +151,7 @@ func (p *parser) allene(c chiralMark) {
 			k++
 		}
 		for range a.ImplicitH {
-			refs[k], side[k] = ref{a.Span.Start, molecule.Implicit}, s
+			refs[k], side[k] = ref{2 * a.Span.Start, molecule.Implicit}, s
 			k++
 		}
 	}

@@ -60,6 +60,9 @@ type writer struct {
 	keyB    []int32
 	bdir    []int8  // '/' '\' per bond, read from A to B
 	group   []int32 // per marked bond: the coupled marks it belongs to
+	digitOf []int8  // ring-closure number per bond while writing
+	rootBuf []int32
+	order   []int32
 	edgeBuf []molecule.Edge
 	buf     strings.Builder
 }
@@ -82,14 +85,20 @@ type token struct {
 }
 
 func newWriter(m *molecule.Molecule, aromatic bool) *writer {
-	w := &writer{m: m, aromatic: aromatic}
+	w := &writer{}
+	w.init(m, aromatic)
+	return w
+}
+
+// init prepares w for m, keeping its buffers.
+func (w *writer) init(m *molecule.Molecule, aromatic bool) {
+	w.m, w.aromatic = m, aromatic
 	if aromatic {
 		w.arom, w.aromB = m.Aromaticity()
 		if !w.aromaticReadable() {
 			w.aromatic = false
 		}
 	}
-	return w
 }
 
 // aromaticReadable checks that every lower-case atom would read back
@@ -191,6 +200,31 @@ func (w *writer) bareOK(i int, lower bool) bool {
 		}
 	}
 	return h == a.ImplicitH
+}
+
+// lowerSymbol is the aromatic (lower-case) symbol of e.
+func lowerSymbol(e molecule.Element) string {
+	switch e {
+	case molecule.B:
+		return "b"
+	case molecule.C:
+		return "c"
+	case molecule.N:
+		return "n"
+	case molecule.O:
+		return "o"
+	case molecule.P:
+		return "p"
+	case molecule.S:
+		return "s"
+	case molecule.As:
+		return "as"
+	case molecule.Se:
+		return "se"
+	case 52:
+		return "te"
+	}
+	return strings.ToLower(e.Symbol())
 }
 
 // lower reports whether atom i is written in lower case.
@@ -359,23 +393,20 @@ func (w *writer) write(rank []int32, r *rand.Rand) string {
 	w.reset(rank)
 	// Roots: lowest-ranked atom of each component, components in rank
 	// order.
-	order := make([]int32, n)
+	w.order = resizeInt32(w.order, n, 0)
+	order := w.order
 	for i := range order {
 		order[i] = int32(i)
 	}
 	sortByRank(order, rank)
-	for _, a := range order {
-		if !w.seen[a] {
-			w.findRings(int(a), -1)
-		}
+	roots := w.roots(order)
+	for _, a := range roots {
+		w.findRings(int(a), -1)
 	}
 	clear(w.seen)
 	var seq int32
 	first := true
-	for _, a := range order {
-		if w.seen[a] {
-			continue
-		}
+	for _, a := range roots {
 		if !first {
 			w.tokens = append(w.tokens, token{kind: tDot})
 		}
@@ -384,6 +415,76 @@ func (w *writer) write(rank []int32, r *rand.Rand) string {
 	}
 	w.cisTransMarks()
 	return w.text(r)
+}
+
+// roots returns the first atom of each component, components in rank
+// order: the lowest-ranked atom, except that a three-coordinate centre
+// with a lone pair does not start a component when another atom can.
+// Readers differ on where the lone pair of a leading centre stands (the
+// OpenSMILES reading, used here, puts it first like a hydrogen; RDKit
+// 2022.09 puts it last), so the writer never leaves that choice open.
+func (w *writer) roots(order []int32) []int32 {
+	m := w.m
+	var lp []bool
+	for _, t := range m.Tetrahedral {
+		c := t.Centre
+		if c >= 0 && c < len(m.Atoms) && m.Degree(c) == 3 && m.Atoms[c].ImplicitH == 0 {
+			if lp == nil {
+				lp = make([]bool, len(m.Atoms))
+			}
+			lp[c] = true
+		}
+	}
+	roots := w.rootBuf[:0]
+	defer func() { w.rootBuf = roots }()
+	if lp == nil {
+		for _, a := range order {
+			if !w.seen[a] {
+				roots = append(roots, a)
+				w.markComponent(int(a))
+			}
+		}
+		clear(w.seen)
+		return roots
+	}
+	comp, n := m.Components()
+	best := make([]int32, n)
+	for i := range best {
+		best[i] = -1
+	}
+	for _, a := range order {
+		c := comp[a]
+		if best[c] < 0 || lp[best[c]] && !lp[a] {
+			best[c] = a
+		}
+	}
+	// Components in the rank order of their lowest atom.
+	roots = roots[:0]
+	done := make([]bool, n)
+	for _, a := range order {
+		c := comp[a]
+		if !done[c] {
+			done[c] = true
+			roots = append(roots, best[c])
+		}
+	}
+	return roots
+}
+
+// markComponent marks every atom connected to a as seen.
+func (w *writer) markComponent(a int) {
+	stack := []int{a}
+	w.seen[a] = true
+	for len(stack) > 0 {
+		x := stack[len(stack)-1]
+		stack = stack[:len(stack)-1]
+		for _, e := range w.m.Edges(x) {
+			if !w.seen[e.Atom] {
+				w.seen[e.Atom] = true
+				stack = append(stack, e.Atom)
+			}
+		}
+	}
 }
 
 func sortByRank(order []int32, rank []int32) {
@@ -416,7 +517,10 @@ func (w *writer) text(r *rand.Rand) string {
 	b := &w.buf
 	b.Reset()
 	var digits [100]bool
-	digitOf := make(map[int32]int) // only ring bonds; few per molecule
+	if cap(w.digitOf) < len(m.Bonds) {
+		w.digitOf = make([]int8, len(m.Bonds))
+	}
+	digitOf := w.digitOf[:len(m.Bonds)]
 	for _, t := range w.tokens {
 		switch t.kind {
 		case tAtom:
@@ -456,11 +560,11 @@ func (w *writer) text(r *rand.Rand) string {
 					d = 99
 				}
 				digits[d] = true
-				digitOf[t.bond] = d
+				digitOf[t.bond] = int8(d)
 				w.bondText(int(t.bond), a)
 				writeDigit(b, d)
 			} else {
-				d := digitOf[t.bond]
+				d := int(digitOf[t.bond])
 				digits[d] = false
 				writeDigit(b, d)
 			}
@@ -530,7 +634,7 @@ func (w *writer) atomText(i int) {
 	chir := w.chirality(i)
 	sym := a.Element.Symbol()
 	if lower {
-		sym = strings.ToLower(sym)
+		sym = lowerSymbol(a.Element)
 	}
 	if chir == 0 && w.bareOK(i, lower) {
 		b.WriteString(sym)

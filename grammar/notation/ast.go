@@ -141,6 +141,8 @@ type Term struct {
 	Substance  *Substance  // nil when the term holds only quantities
 	Quantities []*Quantity // in the order written (before and after the substance, and inside parentheses)
 	Notes      []*Note     // parenthesised text that is not a quantity, e.g. "(freshly distilled)"
+
+	sep Sep // storage for Sep
 }
 
 func (t *Term) Pos() source.Pos { return t.Span.Start }

@@ -91,6 +91,11 @@ func (p *parser) commaSeparates(i, end int) bool {
 
 func isUpperByte(c byte) bool { return 'A' <= c && c <= 'Z' }
 
+// mayBreak marks the ASCII bytes at which a word may end; every other
+// ASCII byte continues it. Non-ASCII bytes are checked in full (no-break
+// spaces, the arrow).
+var mayBreak = [utf8.RuneSelf]bool{' ': true, '\t': true, ',': true, '-': true}
+
 // breakAt reports whether a word cannot continue at i: the end, a space,
 // a separating comma or an arrow.
 func (p *parser) breakAt(i, end int) bool {
@@ -155,8 +160,16 @@ func (p *parser) lex(toks []tok, i, end int) []tok {
 			}
 		}
 		j := i
-		for j < end && !p.breakAt(j, end) {
-			if p.src[j] < utf8.RuneSelf {
+		for j < end {
+			c := p.src[j]
+			if c < utf8.RuneSelf && !mayBreak[c] {
+				j++ // the common case: a byte that cannot end a word
+				continue
+			}
+			if p.breakAt(j, end) {
+				break
+			}
+			if c < utf8.RuneSelf {
 				j++
 				continue
 			}

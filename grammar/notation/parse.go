@@ -3,6 +3,7 @@ package notation
 import (
 	"fmt"
 	"strings"
+	"sync"
 	"unicode/utf8"
 
 	"walden/grammar/source"
@@ -27,13 +28,63 @@ type parser struct {
 	// Nodes are carved from small slabs: a step has a dozen nodes, and
 	// one allocation per node would dominate the parse time.
 	termSlab []Term
-	sepSlab  []Sep
 	subSlab  []Substance
 	qtySlab  []Quantity
 	tokBuf   [32]tok
+	groupBuf [16]tok
+
+	mark0  *Mark // the step's Mark, Label and Arrow, allocated with it
+	label0 *Label
+	arrow0 *Arrow
 }
 
-const slabSize = 8
+const slabSize = 6
+
+// parsers keeps parser state, token buffers included, between calls:
+// the server parses every line of a page on each edit.
+var parsers = sync.Pool{New: func() any { return new(parser) }}
+
+// release clears p of everything the returned tree or errors hold and
+// puts it back in the pool.
+func (p *parser) release() {
+	// Drop what the tree and the errors hold; the token buffers hold no
+	// pointers and need no clearing.
+	p.src, p.str, p.errs = nil, "", nil
+	p.termSlab, p.subSlab, p.qtySlab = nil, nil, nil
+	p.mark0, p.label0, p.arrow0 = nil, nil, nil
+	parsers.Put(p)
+}
+
+// sizeSlabs makes the node slabs as large as the tokens say they will
+// need to be, so that most lines take one allocation per kind of node.
+func (p *parser) sizeSlabs(toks []tok) {
+	terms, subs, qtys := 1, 0, 0
+	for _, t := range toks {
+		switch t.kind {
+		case tPlus, tComma, tArrow:
+			terms++
+		case tGroup:
+			qtys += 2
+		case tWord:
+			switch c := p.src[t.start]; {
+			case isDigitByte(c) || c == '-' || c == '+' || c == '.' ||
+				c == 0xE2 && strings.HasPrefix(p.str[t.start:], "−") || strings.HasPrefix(p.str[t.start:], "–"):
+				qtys++
+			case quantityWordStarts[c|0x20]:
+				if _, ok := p.quantityWord([]tok{t}); ok {
+					qtys++
+				} else {
+					subs++
+				}
+			default:
+				subs++
+			}
+		}
+	}
+	p.termSlab = make([]Term, 0, terms)
+	p.subSlab = make([]Substance, 0, min(subs, terms+1))
+	p.qtySlab = make([]Quantity, 0, min(qtys, 2*terms))
+}
 
 func (p *parser) newTerm() *Term {
 	if len(p.termSlab) == cap(p.termSlab) {
@@ -41,14 +92,6 @@ func (p *parser) newTerm() *Term {
 	}
 	p.termSlab = p.termSlab[:len(p.termSlab)+1]
 	return &p.termSlab[len(p.termSlab)-1]
-}
-
-func (p *parser) newSep() *Sep {
-	if len(p.sepSlab) == cap(p.sepSlab) {
-		p.sepSlab = make([]Sep, 0, slabSize)
-	}
-	p.sepSlab = p.sepSlab[:len(p.sepSlab)+1]
-	return &p.sepSlab[len(p.sepSlab)-1]
 }
 
 func (p *parser) newSubstance() *Substance {
@@ -77,8 +120,20 @@ func (p *parser) newQuantity() *Quantity {
 // the line. It does not judge chemistry: whether a word is a known name or
 // valid SMILES, or a term a sensible solvent, is left to analyze/.
 func Parse(line []byte, base source.Pos) (*Step, source.ErrorList) {
-	p := &parser{src: line, base: base}
-	st := &Step{Span: p.span(0, len(line))}
+	p := parsers.Get().(*parser)
+	defer p.release()
+	p.src, p.base = line, base
+	// The step and its single nodes share one allocation.
+	one := &struct {
+		st      Step
+		mark    Mark
+		label   Label
+		arrow   Arrow
+		comment Comment
+	}{}
+	p.mark0, p.label0, p.arrow0 = &one.mark, &one.label, &one.arrow
+	st := &one.st
+	st.Span = p.span(0, len(line))
 	if len(line) > MaxLineLength {
 		p.errorf(0, len(line), "line-too-long",
 			"step line is %d bytes long; walden reads at most %d bytes per line: split the line or shorten it",
@@ -89,12 +144,14 @@ func Parse(line []byte, base source.Pos) (*Step, source.ErrorList) {
 	p.checkBytes()
 	end := len(line)
 	if c := p.commentStart(); c >= 0 {
-		st.Comment = &Comment{Span: p.span(c, end), Text: strings.TrimSpace(p.str[c+2 : end])}
+		one.comment = Comment{Span: p.span(c, end), Text: strings.TrimSpace(p.str[c+2 : end])}
+		st.Comment = &one.comment
 		end = c
 	}
 	i := p.skipSpace(0, end)
 	i = p.mark(st, i, end)
 	toks := p.lex(p.tokBuf[:0], i, end)
+	p.sizeSlabs(toks)
 	toks = p.label(st, toks)
 	p.terms(st, toks)
 	if len(p.errs) > maxErrors {
@@ -181,7 +238,8 @@ func (p *parser) mark(st *Step, i, end int) int {
 	default:
 		return i
 	}
-	st.Mark = &Mark{Span: p.span(i, i+3), State: state}
+	st.Mark = p.mark0
+	*st.Mark = Mark{Span: p.span(i, i+3), State: state}
 	if i+3 < end && p.spaceAt(i+3, end) == 0 {
 		p.errorf(i, i+3, "mark-space", "status mark %s is followed by %s; put a space after the mark",
 			quote(p.str[i:i+3]), quote(p.wordAt(i+3, end)))
@@ -208,7 +266,8 @@ func (p *parser) label(st *Step, toks []tok) []tok {
 	}
 	t := toks[0]
 	name := p.str[t.start : t.end-1]
-	st.Label = &Label{Span: p.span(t.start, t.end), Name: name, NameSpan: p.span(t.start, t.end-1)}
+	st.Label = p.label0
+	*st.Label = Label{Span: p.span(t.start, t.end), Name: name, NameSpan: p.span(t.start, t.end-1)}
 	switch {
 	case name == "":
 		p.errorf(t.start, t.end, "label-empty", "':' with no label before it; write a label such as 'azide:' or delete the ':'")
@@ -253,16 +312,20 @@ const (
 // terms groups the tokens into terms and files each into its part of the
 // step.
 func (p *parser) terms(st *Step, toks []tok) {
-	segs := []segment{{}}
+	// The words between two separators are contiguous in toks, so each
+	// segment is a sub-slice and costs nothing.
+	var segBuf [16]segment
+	segs := append(segBuf[:0], segment{})
+	from := 0
 	for k := range toks {
-		t := &toks[k]
-		switch t.kind {
+		switch toks[k].kind {
 		case tPlus, tComma, tArrow:
-			segs = append(segs, segment{sep: t})
-		default:
-			segs[len(segs)-1].toks = append(segs[len(segs)-1].toks, *t)
+			segs[len(segs)-1].toks = toks[from:k]
+			segs = append(segs, segment{sep: &toks[k]})
+			from = k + 1
 		}
 	}
+	segs[len(segs)-1].toks = toks[from:]
 	if len(segs) == 1 && len(segs[0].toks) == 0 {
 		if st.Mark != nil && st.Label == nil {
 			p.errorf(int(st.Mark.Span.Start-p.base), int(st.Mark.Span.End-p.base), "missing-substrate",
@@ -270,32 +333,40 @@ func (p *parser) terms(st *Step, toks []tok) {
 		}
 		return
 	}
+	type placed struct {
+		ph phase
+		t  *Term
+	}
+	var allBuf [16]placed
+	all := allBuf[:0]
 	ph := inReactants
 	for k, seg := range segs {
 		var sep *Sep
 		if seg.sep != nil {
 			switch seg.sep.kind {
 			case tPlus:
-				sep = p.newSep()
-				*sep = Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Plus}
+				sep = &Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Plus}
 			case tComma:
-				sep = p.newSep()
-				*sep = Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Comma}
+				sep = &Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Comma}
 				if ph == inReactants {
 					ph = inConditions
 				} else if ph == inProducts {
 					ph = inConditions
 				}
 			case tArrow:
-				if p.rangeAcrossArrow(st, ph, seg) {
+				var last *Term
+				if len(all) > 0 && all[len(all)-1].ph == inConditions {
+					last = all[len(all)-1].t
+				}
+				if p.rangeAcrossArrow(last, seg) {
 					continue
 				}
-				a := &Arrow{Span: p.span(seg.sep.start, seg.sep.end)}
 				if st.Arrow != nil {
 					p.errorf(seg.sep.start, seg.sep.end, "second-arrow",
 						"second arrow in one step; a step has one '->' before its expected products: split the line into two steps")
 				} else {
-					st.Arrow = a
+					st.Arrow = p.arrow0
+					*st.Arrow = Arrow{Span: p.span(seg.sep.start, seg.sep.end)}
 				}
 				ph = inProducts
 				if len(seg.toks) == 0 {
@@ -308,7 +379,7 @@ func (p *parser) terms(st *Step, toks []tok) {
 					// prediction; it is not an error.
 					continue
 				}
-				st.Products = append(st.Products, p.term(seg.toks, nil))
+				all = append(all, placed{inProducts, p.term(seg.toks, nil)})
 				continue
 			}
 		}
@@ -316,15 +387,28 @@ func (p *parser) terms(st *Step, toks []tok) {
 			p.emptySegment(segs, k, ph)
 			continue
 		}
-		t := p.term(seg.toks, sep)
-		switch ph {
-		case inReactants:
-			st.Reactants = append(st.Reactants, t)
-		case inConditions:
-			st.Conditions = append(st.Conditions, t)
-		case inProducts:
-			st.Products = append(st.Products, t)
-		}
+		all = append(all, placed{ph, p.term(seg.toks, sep)})
+	}
+	// One backing array for the three lists.
+	var count [3]int
+	for _, pt := range all {
+		count[pt.ph]++
+	}
+	backing := make([]*Term, len(all))
+	next := [3]int{0, count[0], count[0] + count[1]}
+	for _, pt := range all {
+		backing[next[pt.ph]] = pt.t
+		next[pt.ph]++
+	}
+	r, c := count[0], count[0]+count[1]
+	if r > 0 {
+		st.Reactants = backing[:r:r]
+	}
+	if c > r {
+		st.Conditions = backing[r:c:c]
+	}
+	if len(all) > c {
+		st.Products = backing[c:]
 	}
 }
 
@@ -359,12 +443,12 @@ func (p *parser) emptySegment(segs []segment, k int, ph phase) {
 
 // rangeAcrossArrow handles "-78 °C -> rt" among the conditions: an arrow
 // between two temperatures is a temperature range, not the reaction
-// arrow. It reports whether it took the segment.
-func (p *parser) rangeAcrossArrow(st *Step, ph phase, seg segment) bool {
-	if ph != inConditions || len(st.Conditions) == 0 || len(seg.toks) == 0 {
+// arrow. last is the condition before the arrow, if any. It reports
+// whether it took the segment.
+func (p *parser) rangeAcrossArrow(last *Term, seg segment) bool {
+	if last == nil || len(seg.toks) == 0 {
 		return false
 	}
-	last := st.Conditions[len(st.Conditions)-1]
 	if last.Substance != nil || len(last.Quantities) != 1 || last.Quantities[0].Kind != Temperature || last.Quantities[0].To != nil {
 		return false
 	}

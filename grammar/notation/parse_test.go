@@ -124,6 +124,11 @@ func TestValid(t *testing.T) {
 		{"CCBr + NaN3, DMF,60 °C", "R:CCBr | R:NaN3 | C:DMF | C:[60 °C]"},
 		{"CCBr + NaN3, 5 bar, 20 wt%", "R:CCBr | R:NaN3 | C:[5 bar] | C:[20 wt%]"},
 		{"CCBr + NaN3, DMF, 60 °C, 3 mol %", "R:CCBr | R:NaN3 | C:DMF | C:[60 °C] | C:[3 mol%]"},
+		// The forms docs/notation.md promises.
+		{"CCBr + NaN3, MeOH / CH2Cl2 1:9 v/v, 60 ℃, 0 to 25 °C, o/n", "R:CCBr | R:NaN3 | C:mix(MeOH,CH2Cl2;1:9) | C:[60 °C] | C:[0 °C to 25 °C] | C:[overnight]"},
+		{"CCBr + 2× NaN3, at 60 °C, 298 K, 1 atm, 250 mg, 5 mL, 2 M, 60 oC, 3 hours", "R:CCBr | R:NaN3[2 eq] | C:[60 °C] | C:[298 K] | C:[1 atm] | C:[250 mg] | C:[5 mL] | C:[2 M] | C:[60 °C] | C:[3 h]"},
+		{"CCBr + NaN3 (1.5 eq, 3.2 mmol), r.t., for 2 h, 2 days, 30 s", "R:CCBr | R:NaN3[1.5 eq][3.2 mmol] | C:[rt] | C:[2 h] | C:[2 d] | C:[30 s]"},
+		{"CCBr + [K+].[C-]#N, tert-butanol, 2-propanol", "R:CCBr | R:[K+].[C-]#N | C:tert-butanol | C:2-propanol"},
 	} {
 		st, errs := Parse([]byte(tc.line), 0)
 		assert.Empty(t, errs, "%q", tc.line)

@@ -18,6 +18,7 @@ var (
 	units                  = map[string]unit{} // exact spelling
 	foldedUnits            = map[string]unit{} // lower-cased spelling, for rows marked fold
 	quantityWords          = map[string]unit{} // lower-cased word or words joined by one space
+	quantityWordStarts     [256]bool           // first bytes of quantityWords, to skip most lookups
 	maxWordsInQuantityWord = 1
 )
 
@@ -49,6 +50,7 @@ func init() {
 		}
 		for _, w := range strings.Split(row[0], "|") {
 			quantityWords[w] = u
+			quantityWordStarts[w[0]] = true
 			maxWordsInQuantityWord = max(maxWordsInQuantityWord, strings.Count(w, " ")+1)
 		}
 	}
@@ -96,6 +98,9 @@ func lowerASCII(b []byte, s string) []byte {
 // quantityWord looks up the words ws, joined by one space, in words.tsv,
 // without regard to ASCII case.
 func (p *parser) quantityWord(ws []tok) (unit, bool) {
+	if c := p.src[ws[0].start]; !quantityWordStarts[c|0x20] && !quantityWordStarts[c] {
+		return unit{}, false
+	}
 	var buf [48]byte
 	b := buf[:0]
 	for i, w := range ws {

@@ -2,6 +2,7 @@ package notation
 
 import (
 	"strings"
+	"unicode/utf8"
 
 	"walden/grammar/source"
 )
@@ -11,41 +12,53 @@ import (
 // the substance.
 func (p *parser) term(toks []tok, sep *Sep) *Term {
 	t := p.newTerm()
-	*t = Term{Sep: sep, Span: p.span(toks[0].start, toks[len(toks)-1].end)}
-	var subs []*Substance
-	var run []tok
-	flush := func() {
-		if len(run) > 0 {
-			subs = append(subs, p.substance(run))
-			run = nil
-		}
+	*t = Term{Span: p.span(toks[0].start, toks[len(toks)-1].end)}
+	if sep != nil {
+		t.sep = *sep // kept in the term: one allocation fewer
+		t.Sep = &t.sep
 	}
-	for k := 0; k < len(toks); {
+	var subBuf [2]*Substance
+	subs := subBuf[:0]
+	run := -1 // start in toks of the words not yet taken, or -1
+	for k := 0; k <= len(toks); {
+		if k == len(toks) {
+			if run >= 0 {
+				subs = append(subs, p.substance(toks[run:k]))
+			}
+			break
+		}
 		tk := toks[k]
-		if tk.kind == tGroup {
-			flush()
-			p.group(t, tk)
-			k++
-			continue
+		var q *Quantity
+		var n int
+		var errs source.ErrorList
+		if tk.kind == tWord && p.src[tk.start] != '@' {
+			if q, n, errs = p.quantity(toks, k, true); q == nil {
+				p.wordChecks(tk)
+				if run < 0 {
+					run = k
+				}
+				k++
+				continue
+			}
 		}
-		if p.src[tk.start] == '@' {
-			flush()
-			subs = append(subs, p.reference(tk))
-			k++
-			continue
+		// Anything else ends the run of name words.
+		if run >= 0 {
+			subs = append(subs, p.substance(toks[run:k]))
+			run = -1
 		}
-		if q, n, errs := p.quantity(toks, k, true); q != nil {
-			flush()
+		switch {
+		case q != nil:
 			t.Quantities = append(t.Quantities, q)
 			p.errs = append(p.errs, errs...)
 			k += n
-			continue
+		case tk.kind == tGroup:
+			p.group(t, tk)
+			k++
+		default:
+			subs = append(subs, p.reference(tk))
+			k++
 		}
-		p.wordChecks(tk)
-		run = append(run, tk)
-		k++
 	}
-	flush()
 	if len(subs) > 0 {
 		t.Substance = subs[0]
 		for _, s := range subs[1:] {
@@ -113,6 +126,16 @@ func (p *parser) reference(tk tok) *Substance {
 	return s
 }
 
+// mayStartQuantity is a quick test that rules out most name words
+// before the slower reading: a quantity starts with a digit, a sign, a
+// point, a non-ASCII minus or dash, or a letter that starts a word of
+// words.tsv or "at"/"for".
+func (p *parser) mayStartQuantity(t tok) bool {
+	c := p.src[t.start]
+	return isDigitByte(c) || c == '-' || c == '+' || c == '.' || c >= utf8.RuneSelf ||
+		quantityWordStarts[c|0x20] || c|0x20 == 'a' || c|0x20 == 'f'
+}
+
 // quantity reads a quantity starting at toks[k]: a word such as "rt", a
 // number with its unit (glued or as the next word), a ratio, optionally
 // after "at" or "for", optionally a range "… to …". It returns the
@@ -120,6 +143,9 @@ func (p *parser) reference(tk tok) *Substance {
 // caller keeps it; nil when toks[k] does not start a quantity. When
 // ranges is false it does not look for "to" (the upper end of a range).
 func (p *parser) quantity(toks []tok, k int, ranges bool) (*Quantity, int, source.ErrorList) {
+	if k >= len(toks) || toks[k].kind != tWord || !p.mayStartQuantity(toks[k]) {
+		return nil, 0, nil
+	}
 	words := 0
 	for k+words < len(toks) && toks[k+words].kind == tWord {
 		words++
@@ -248,12 +274,13 @@ func (p *parser) group(t *Term, g tok) {
 		p.errorf(g.start, g.start+1, "unclosed-paren",
 			"'(' is not closed; write ')' after %s", quote(strings.TrimSpace(p.str[g.start+1:g.end])))
 	}
-	toks := p.lex(nil, g.start+1, innerEnd)
+	toks := p.lex(p.groupBuf[:0], g.start+1, innerEnd)
 	if len(toks) == 0 {
 		p.errorf(g.start, g.end, "empty-parens", "empty parentheses; write an amount such as '(1.5 eq)' or delete them")
 		return
 	}
-	var piece []tok
+	var pieceBuf [8]tok
+	piece := pieceBuf[:0]
 	take := func() {
 		if len(piece) == 0 {
 			return
@@ -276,7 +303,7 @@ func (p *parser) group(t *Term, g tok) {
 			a, b := piece[0].start, piece[len(piece)-1].end
 			t.Notes = append(t.Notes, &Note{Span: p.span(a, b), Text: p.str[a:b]})
 		}
-		piece = nil
+		piece = piece[:0]
 	}
 	for _, tk := range toks {
 		if tk.kind == tComma {
@@ -292,6 +319,26 @@ func (p *parser) group(t *Term, g tok) {
 // (SMILES or a name), a phrase (a name of several words), or a mixture
 // of such parts joined by '/' or a dash ("THF/water", "acetone–water").
 func (p *parser) substance(run []tok) *Substance {
+	if !p.anyJoins(run) {
+		s := p.newSubstance()
+		first, last := run[0], run[len(run)-1]
+		*s = Substance{Span: p.span(first.start, last.end), Kind: Word, Text: p.str[first.start:last.end]}
+		if len(run) == 1 {
+			return s
+		}
+		s.Kind = Phrase
+		for i := 1; i < len(run); i++ {
+			if run[i].start != run[i-1].end+1 || p.src[run[i-1].end] != ' ' {
+				words := make([]string, len(run))
+				for i, tk := range run {
+					words[i] = p.text(tk)
+				}
+				s.Text = strings.Join(words, " ")
+				break
+			}
+		}
+		return s
+	}
 	type piece struct{ start, end int }
 	var parts [][]piece
 	var cur []piece
@@ -361,6 +408,17 @@ func (p *parser) substance(run []tok) *Substance {
 	}
 	m.Text = strings.Join(texts, "/")
 	return m
+}
+
+// anyJoins reports whether a word of run may join a mixture.
+func (p *parser) anyJoins(run []tok) bool {
+	for _, tk := range run {
+		w := p.str[tk.start:tk.end]
+		if strings.IndexByte(w, '/') >= 0 || strings.IndexByte(w, 0xE2) >= 0 && (strings.Contains(w, "–") || strings.Contains(w, "—")) {
+			return true
+		}
+	}
+	return false
 }
 
 // mixtureJoins returns the marks in a word that join the parts of a

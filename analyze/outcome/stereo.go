@@ -1,0 +1,51 @@
+package outcome
+
+import (
+	"walden/analyze/cip"
+	"walden/analyze/molecule"
+	"walden/analyze/perceive"
+)
+
+// label returns the CIP letter of atom a of m, or "".
+func label(m *molecule.Molecule, a int) string {
+	ds, _ := cip.Label(m)
+	for _, d := range ds {
+		if d.Atoms[0] == a && d.Atoms[1] < 0 {
+			return d.Label.String()
+		}
+	}
+	return ""
+}
+
+// stereo records what happened at the reacting carbon in the major
+// product: inverted (SN2), lost (SN1, elimination, degenerate exchange).
+func stereo(o *Outcome, sub *molecule.Molecule, c *scoring) {
+	if perceive.TetrahedralAt(sub, c.site.Carbon) < 0 {
+		return
+	}
+	before := label(sub, c.site.Carbon)
+	ch := StereoChange{Atom: c.site.Carbon, Before: before, Change: Lost}
+	mp := o.Major()
+	if mp != nil && mp.Pathway == SN2 && !degenerate(c) {
+		ch.Change = Inverted
+		// The reacting carbon is the atom bonded to the nucleophile;
+		// find it as the tetrahedral centre whose refs changed: the
+		// builder keeps substrate order, so its index is the substrate
+		// index less the dropped atoms before it.
+		ch.After = label(mp.Mol, shifted(sub, c, c.site.Carbon))
+	}
+	ch.LetterChanged = ch.Before != "" && ch.After != "" && ch.Before != ch.After
+	o.Stereo = append(o.Stereo, ch)
+}
+
+// shifted maps a substrate atom to its index in a substitution product
+// (atoms keep their order; the leaving group's atoms are dropped).
+func shifted(sub *molecule.Molecule, c *scoring, a int) int {
+	n := a
+	for _, x := range c.site.Leaving.Atoms {
+		if x < a {
+			n--
+		}
+	}
+	return n
+}

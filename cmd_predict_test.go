@@ -1,0 +1,93 @@
+package main
+
+import (
+	"encoding/json"
+	"os"
+	"path/filepath"
+	"strings"
+	"testing"
+)
+
+// TestPredictJSONShape checks the interface DESIGN.md fixes for
+// `walden predict --json`: mechanism, products {smiles, fraction, role},
+// diagnostics {code, severity, message, range} and stereo. The chemistry:
+// azide displaces a secondary bromide in DMF by SN2 with inversion (common
+// practice); (S)-(3-bromobutyl)benzene gives the (R)-azide, CIP letters
+// checked with RDKit 2022.09 rdCIPLabeler.
+func TestPredictJSONShape(t *testing.T) {
+	out, errOut, code := runCmd("predict", "--json", "C[C@H](Br)CCc1ccccc1 + NaN3, DMF, 60 °C")
+	if code != exitClean {
+		t.Fatalf("exit %d: %s", code, errOut)
+	}
+	var got map[string]any
+	if err := json.Unmarshal([]byte(out), &got); err != nil {
+		t.Fatalf("not one JSON object: %v\n%s", err, out)
+	}
+	if got["mechanism"] != "SN2" {
+		t.Errorf("mechanism %v, want SN2", got["mechanism"])
+	}
+	products := got["products"].([]any)
+	if len(products) == 0 {
+		t.Fatal("no products")
+	}
+	major := products[0].(map[string]any)
+	if major["role"] != "major" || major["smiles"] == "" || major["fraction"].(float64) <= 0.5 {
+		t.Errorf("major product %v", major)
+	}
+	stereo := got["stereo"].([]any)
+	if len(stereo) != 1 {
+		t.Fatalf("stereo %v", stereo)
+	}
+	s := stereo[0].(map[string]any)
+	if s["before"] != "S" || s["after"] != "R" || s["outcome"] != "inverted" || s["atom"].(float64) != 2 {
+		t.Errorf("stereo %v, want atom 2 S → R inverted", s)
+	}
+	for _, d := range got["diagnostics"].([]any) {
+		m := d.(map[string]any)
+		for _, k := range []string{"code", "severity", "message", "range"} {
+			if _, ok := m[k]; !ok {
+				t.Errorf("diagnostic without %s: %v", k, m)
+			}
+		}
+	}
+}
+
+// TestPredictFile prints one object per step line, blank lines and
+// comments skipped, bad lines included with their diagnostics.
+func TestPredictFile(t *testing.T) {
+	p := filepath.Join(t.TempDir(), "batch.steps")
+	os.WriteFile(p, []byte("// batch\nCCCCBr + NaI, acetone\n\nCC(C)(C)Br + KOtBu, THF\nCC(( + NaN3\n"), 0o644)
+	out, _, _ := runCmd("predict", "--json", "--file", p)
+	lines := strings.Split(strings.TrimSpace(out), "\n")
+	if len(lines) != 3 {
+		t.Fatalf("%d objects, want 3:\n%s", len(lines), out)
+	}
+	var first struct {
+		Mechanism string `json:"mechanism"`
+	}
+	json.Unmarshal([]byte(lines[0]), &first)
+	// Finkelstein exchange of a primary bromide: SN2 (common practice;
+	// H. Finkelstein, Ber. Dtsch. Chem. Ges. 1910, 43, 1528, from memory).
+	if first.Mechanism != "SN2" {
+		t.Errorf("first line mechanism %q, want SN2", first.Mechanism)
+	}
+	var last struct {
+		Diagnostics []struct {
+			Code  string `json:"code"`
+			Range struct {
+				Start struct{ Line int } `json:"start"`
+			} `json:"range"`
+		} `json:"diagnostics"`
+	}
+	json.Unmarshal([]byte(lines[2]), &last)
+	if len(last.Diagnostics) == 0 || last.Diagnostics[0].Range.Start.Line != 4 {
+		t.Errorf("bad line: %s", lines[2])
+	}
+}
+
+// TestPredictUsage: no line is a usage error.
+func TestPredictUsage(t *testing.T) {
+	if _, _, code := runCmd("predict"); code != exitUsage {
+		t.Errorf("code %d, want %d", code, exitUsage)
+	}
+}

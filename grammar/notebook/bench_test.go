@@ -1,0 +1,109 @@
+package notebook
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"testing"
+
+	"walden/grammar/notation"
+)
+
+// kestrelSteps are the lines the generated notebooks repeat: the Kestrel
+// plan, from short to long.
+var kestrelSteps = []string{
+	"mesylate%d: C[C@H](O)CCc1ccccc1 + MsCl (1.2 eq) + Et3N (1.5 eq), CH2Cl2, 0 °C, 1 h",
+	"[x] azide%d: @mesylate%d + NaN3 (1.5 eq), DMF, 60 °C, 12 h -> C[C@@H](N=[N+]=[N-])CCc1ccccc1",
+	"amine%d: @azide%d + PPh3, THF/water, rt, overnight",
+	"ether%d: @mesylate%d + NaOEt, EtOH, reflux // E2 risk",
+	"CCBr + NaN3, DMF",
+}
+
+// page writes a Markdown page of n steps, ten to a fenced block with a
+// line of prose between blocks.
+func page(n int) []byte {
+	var b bytes.Buffer
+	b.WriteString("# Kestrel, generated\n\n")
+	for i := 0; i < n; i++ {
+		if i%10 == 0 {
+			if i > 0 {
+				b.WriteString("```\n\nNext batch.\n\n")
+			}
+			b.WriteString("```reaction\n")
+		}
+		var line string
+		switch f := kestrelSteps[i%len(kestrelSteps)]; i % len(kestrelSteps) {
+		case 0:
+			line = fmt.Sprintf(f, i)
+		case 4:
+			line = f
+		default:
+			line = fmt.Sprintf(f, i, i-1)
+		}
+		b.WriteString(line)
+		b.WriteByte('\n')
+	}
+	b.WriteString("```\n")
+	return b.Bytes()
+}
+
+// BenchmarkMarkdown10000: find and parse every step of a 10,000-step page.
+func BenchmarkMarkdown10000(b *testing.B) {
+	text := page(10000)
+	b.SetBytes(int64(len(text)))
+	b.ReportAllocs()
+	b.ResetTimer()
+	for range b.N {
+		pg := FindMarkdown(text)
+		if len(pg.Lines) != 10000 {
+			b.Fatalf("%d lines", len(pg.Lines))
+		}
+		for _, l := range pg.Lines {
+			notation.Parse(text[l.Span.Start:l.Span.End], l.Span.Start)
+		}
+	}
+}
+
+// BenchmarkFind10000: finding the lines only.
+func BenchmarkFind10000(b *testing.B) {
+	text := page(10000)
+	b.SetBytes(int64(len(text)))
+	b.ReportAllocs()
+	b.ResetTimer()
+	for range b.N {
+		FindMarkdown(text)
+	}
+}
+
+// BenchmarkNotebook10000: the same page cut into 1,000 markdown cells of
+// a Jupyter notebook, read and parsed.
+func BenchmarkNotebook10000(b *testing.B) {
+	text := page(10000)
+	var cells []map[string]any
+	for _, chunk := range bytes.SplitAfter(text, []byte("\nNext batch.\n")) {
+		cells = append(cells, map[string]any{"cell_type": "markdown", "metadata": map[string]any{}, "source": string(chunk)})
+	}
+	data, err := json.Marshal(map[string]any{"nbformat": 4, "nbformat_minor": 5, "metadata": map[string]any{}, "cells": cells})
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.SetBytes(int64(len(data)))
+	b.ReportAllocs()
+	b.ResetTimer()
+	for range b.N {
+		nb, errs := ReadNotebook(data)
+		if len(errs) > 0 {
+			b.Fatal(errs)
+		}
+		n := 0
+		for _, c := range nb.Cells {
+			for _, l := range c.Page.Lines {
+				notation.Parse(c.Text[l.Span.Start:l.Span.End], l.Span.Start)
+				n++
+			}
+		}
+		if n != 10000 {
+			b.Fatalf("%d steps", n)
+		}
+	}
+}

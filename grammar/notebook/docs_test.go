@@ -1,0 +1,44 @@
+package notebook
+
+import (
+	"bytes"
+	"os"
+	"testing"
+
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
+
+	"walden/grammar/notation"
+)
+
+// TestDocExamples: every step shown in docs/notation.md (the reaction
+// blocks of the page, and those quoted inside its ~~~markdown example)
+// parses without a syntax error, so the documentation cannot drift from
+// the parser.
+func TestDocExamples(t *testing.T) {
+	doc, err := os.ReadFile("../../docs/notation.md")
+	if os.IsNotExist(err) {
+		t.Skip("docs/notation.md is not in this tree")
+	}
+	require.NoError(t, err)
+	texts := [][]byte{doc}
+	if i := bytes.Index(doc, []byte("~~~markdown\n")); i >= 0 {
+		rest := doc[i+len("~~~markdown\n"):]
+		if j := bytes.Index(rest, []byte("\n~~~")); j >= 0 {
+			texts = append(texts, rest[:j+1])
+		}
+	}
+	n := 0
+	for _, text := range texts {
+		pg := FindMarkdown(text)
+		assert.Empty(t, pg.Errors)
+		for _, l := range pg.Lines {
+			line := text[l.Span.Start:l.Span.End]
+			st, errs := notation.Parse(line, 0)
+			assert.Empty(t, errs, "%s", line)
+			assert.NotNil(t, st.Substrate(), "%s", line)
+			n++
+		}
+	}
+	assert.GreaterOrEqual(t, n, 6)
+}
