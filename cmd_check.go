@@ -51,7 +51,8 @@ type checkedFile struct {
 
 // finding is one diagnostic placed in a file (and, for a notebook, a cell).
 type finding struct {
-	cell  int // index of the notebook cell; -1 outside notebooks
+	file  string // set when the finding is in another file than the one checked (the settings or names file)
+	cell  int    // index of the notebook cell; -1 outside notebooks
 	start source.Point
 	end   source.Point
 	// LSP positions: 0-based line and UTF-16 character.
@@ -187,32 +188,41 @@ func collectPaths(args []string) (paths []string, bad []string) {
 	return paths, bad
 }
 
-// checkFiles analyses every file, two at a time per core, and returns the
-// results in the order of paths. Files under one settings file share one
-// Engine.
+// checkFiles analyses every file, one at a time per core, and returns
+// the results in the order of paths. Each file gets its own Engine (labels
+// do not cross files), so memory stays bounded by the largest file; the
+// settings file's problems are reported once, on the first file it covers.
 func checkFiles(paths []string) []checkedFile {
 	out := make([]checkedFile, len(paths))
 	var (
-		mu      sync.Mutex
-		engines = map[string]*analyze.Engine{}
-		wg      sync.WaitGroup
-		next    = make(chan int)
+		mu       sync.Mutex
+		settings = map[string]analyze.Config{}
+		wg       sync.WaitGroup
+		next     = make(chan int)
 	)
 	engineFor := func(p string) (*analyze.Engine, []finding) {
 		cfg, file, errs := analyze.LoadSettings(p, os.ReadFile)
 		mu.Lock()
-		defer mu.Unlock()
-		e, ok := engines[file]
-		if !ok {
-			e = analyze.NewEngine(cfg)
-			engines[file] = e
-		}
+		_, seen := settings[file]
+		settings[file] = cfg
+		mu.Unlock()
 		var fs []finding
-		if !ok && len(errs) > 0 {
+		if !seen && len(errs) > 0 {
 			text, _ := os.ReadFile(file)
-			fs = placeErrors(text, -1, errs, analyze.CodeSettings)
+			for _, f := range placeErrors(text, -1, errs, analyze.CodeSettings) {
+				f.file = file
+				fs = append(fs, f)
+			}
 		}
-		return e, fs
+		eng := analyze.NewEngine(cfg)
+		if !seen && len(eng.NamesErrors()) > 0 {
+			text, _ := os.ReadFile(cfg.LabNamesFile)
+			for _, f := range placeErrors(text, -1, eng.NamesErrors(), analyze.CodeSettings) {
+				f.file = cfg.LabNamesFile
+				fs = append(fs, f)
+			}
+		}
+		return eng, fs
 	}
 	for range max(1, runtime.GOMAXPROCS(0)) {
 		wg.Add(1)

@@ -11,10 +11,20 @@ import (
 // "file:line:column", or "file[cell N]:line:column" in a notebook (cells
 // counted from 1, as notebook editors show them).
 func (f finding) location(path string) string {
+	path = f.path(path)
 	if f.cell >= 0 {
 		return fmt.Sprintf("%s[cell %d]:%s", path, f.cell+1, f.start)
 	}
 	return fmt.Sprintf("%s:%s", path, f.start)
+}
+
+// path is the file a finding is in: the checked file, or the settings
+// or names file it points at.
+func (f finding) path(checked string) string {
+	if f.file != "" {
+		return f.file
+	}
+	return checked
 }
 
 // writeText prints one line per finding:
@@ -59,7 +69,7 @@ func writeJSON(w io.Writer, files []checkedFile) error {
 	for _, cf := range files {
 		for _, f := range cf.findings {
 			j := jsonFinding{
-				File:     cf.path,
+				File:     f.path(cf.path),
 				Range:    jsonRange{jsonPosition{f.line, f.char}, jsonPosition{f.endLine, f.endChar}},
 				Code:     f.diag.Code,
 				Severity: f.diag.Severity.String(),

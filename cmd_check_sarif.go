@@ -128,8 +128,8 @@ func writeSARIF(w io.Writer, files []checkedFile) error {
 		Results:    []sarifResult{},
 	}
 	for _, cf := range files {
-		uri := filepath.ToSlash(cf.path)
 		for _, f := range cf.findings {
+			uri := filepath.ToSlash(f.path(cf.path))
 			loc := sarifLocation{PhysicalLocation: sarifPhysical{
 				ArtifactLocation: sarifArtifact{URI: uri},
 				Region:           sarifRegion{f.line + 1, f.char + 1, f.endLine + 1, f.endChar + 1},

@@ -32,7 +32,7 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 	}
 	res.refs = references(p)
 	res.slots = slots(p)
-	res.parts = append(res.parts, substanceHovers(in)...)
+	res.in = in
 	if p.Blank() {
 		return res
 	}
@@ -62,7 +62,7 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 		if l := cipLabels(in.substrate.mol); len(l) > 0 {
 			res.hover += "\n\nCIP: " + labelList(l)
 		}
-		res.parts = append(res.parts, atomHovers(in, &prediction{reacting: -1})...)
+		res.pred = nil
 		return res
 	}
 	e.applyDefaults(in)
@@ -81,8 +81,7 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 	res.handOn = handOnFrom(res.label, in, pred)
 	res.pred = pred.public(through(res.label, in, pred))
 	res.inlay = inlayText(pred)
-	res.hover = stepHover(in, pred, cautions, res.handOn, res.pred.Through)
-	res.parts = append(res.parts, atomHovers(in, pred)...)
+	res.chem, res.cautions = pred, cautions
 	return res
 }
 

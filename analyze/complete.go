@@ -61,7 +61,7 @@ func (r *Report) completeLabels(ps *placedStep, prefix string, span source.Span)
 func (d *dictionary) complete(prefix string, span source.Span) []Completion {
 	var out []Completion
 	low := strings.ToLower(prefix)
-	for _, n := range d.names {
+	for _, n := range d.allNames() {
 		if !strings.HasPrefix(strings.ToLower(n.Text), low) {
 			continue
 		}

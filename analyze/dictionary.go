@@ -1,6 +1,10 @@
 package analyze
 
 import (
+	"sync"
+
+	"walden/analyze/molecule"
+	"walden/analyze/smiles"
 	"walden/analyze/reagents"
 	"walden/grammar/source"
 )
@@ -8,9 +12,11 @@ import (
 // dictionary is the Engine's view of the reagent and solvent dictionary:
 // the built-in tables plus the lab's own names file.
 type dictionary struct {
+	mols  sync.Map // SMILES of an entry → *molecule.Molecule, read once and shared (never changed)
 	d     *reagents.Dictionary
 	errs  source.ErrorList // problems in the lab's names file, positioned in it
-	names []reagents.Name  // for completion, sorted
+	namesOnce sync.Once
+	names     []reagents.Name // for completion, sorted; made on first use
 }
 
 // entry is what a name stands for: a reagent, a solvent, or both
@@ -29,7 +35,6 @@ func newDictionary(cfg Config) *dictionary {
 			d.errs.Add(e.Span, CodeSettings, e.Msg)
 		}
 	}
-	d.names = d.d.Names()
 	return d
 }
 
@@ -47,3 +52,27 @@ func (d *dictionary) asSolvent(name string) *reagents.Solvent { return d.lookup(
 
 // suggest returns up to n known names closest to name.
 func (d *dictionary) suggest(name string, n int) []string { return d.d.Suggest(name, n) }
+
+// molecule returns the molecule of a dictionary entry's SMILES, read once:
+// the same reagent appears in thousands of steps. The molecule is shared
+// and must not be changed; nil when the SMILES does not read.
+func (d *dictionary) molecule(smi string) *molecule.Molecule {
+	if smi == "" {
+		return nil
+	}
+	if m, ok := d.mols.Load(smi); ok {
+		return m.(*molecule.Molecule)
+	}
+	m, err := smiles.Parse(smi)
+	if err != nil {
+		m = nil
+	}
+	d.mols.Store(smi, m)
+	return m
+}
+
+// allNames returns every name with its detail, for completion.
+func (d *dictionary) allNames() []reagents.Name {
+	d.namesOnce.Do(func() { d.names = d.d.Names() })
+	return d.names
+}

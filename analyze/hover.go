@@ -19,21 +19,39 @@ func (r *Report) Hover(pos source.Pos) (markdown string, span source.Span, ok bo
 	if ps == nil {
 		return "", source.Span{}, false
 	}
+	res := ps.res
 	rel := pos - ps.base
+	var parts []partHover
+	if res.in != nil {
+		parts = substanceHovers(res.in)
+		chem := res.chem
+		if chem == nil {
+			chem = &prediction{reacting: -1}
+		}
+		parts = append(parts, atomHovers(res.in, chem)...)
+	}
 	best := -1
-	for i, p := range ps.res.parts {
-		if p.span.Contains(rel) && (best < 0 || p.span.Len() < ps.res.parts[best].span.Len()) {
+	for i, p := range parts {
+		if p.span.Contains(rel) && (best < 0 || p.span.Len() < parts[best].span.Len()) {
 			best = i
 		}
 	}
 	if best >= 0 {
-		p := ps.res.parts[best]
+		p := parts[best]
 		return p.markdown, p.span.Shift(ps.base), true
 	}
-	if ps.res.hover == "" {
+	md := res.hover
+	if res.chem != nil {
+		var through []string
+		if res.pred != nil {
+			through = res.pred.Through
+		}
+		md = stepHover(res.in, res.chem, res.cautions, res.handOn, through)
+	}
+	if md == "" {
 		return "", source.Span{}, false
 	}
-	return ps.res.hover, ps.span, true
+	return md, ps.span, true
 }
 
 // stepHover is the Markdown shown over a step.

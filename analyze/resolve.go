@@ -47,11 +47,7 @@ func (r *resolver) substance(s *notation.Substance, term *notation.Term) *substa
 		} else {
 			out.smiles = out.solvent.SMILES
 		}
-		if out.smiles != "" {
-			if m, err := smiles.Parse(out.smiles); err == nil {
-				out.mol = m
-			}
-		}
+		out.mol = r.dict.molecule(out.smiles)
 		return out
 	}
 	if s.Kind == notation.Word {

@@ -1,6 +1,7 @@
 package analyze
 
 import (
+	"walden/analyze/caution"
 	"walden/analyze/molecule"
 	"walden/analyze/reagents"
 	"walden/grammar/notation"
@@ -20,8 +21,12 @@ type stepResult struct {
 	tokens    []Token
 	inlay     string
 	fixes     []Fix
-	hover     string      // Markdown for the whole step
-	parts     []partHover // reagents, solvents, atoms of SMILES
+	hover     string      // Markdown for the whole step, when fixed at analysis (else built from chem)
+	// What hover text is built from, on demand: a step's hover is read
+	// far less often than it is analysed, so the Markdown is not kept.
+	in       *stepInput
+	chem     *prediction
+	cautions []caution.Caution
 	slots     []slot      // where completion applies
 	pred      *Prediction // nil when nothing was predicted
 }

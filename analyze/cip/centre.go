@@ -39,6 +39,10 @@ func (l *Labeller) labelCentre(u *unit, n int32, seq *ruleSeq) (Letter, bool) {
 		if !unique {
 			return None, true
 		}
+		// A centre told apart only by the rule 6 reference has
+		// homomorphic, not enantiomorphic, ligands: its descriptor is
+		// R or S (suite entries VS280 to VS300, Hanson et al. 2018).
+		pseudo = false
 	}
 	var ordered [4]int
 	k := 0

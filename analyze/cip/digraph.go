@@ -70,8 +70,10 @@ type digraph struct {
 	root  int32 // current root
 	rule6 int32 // atom preferred by rule 6, -1 when none
 	limit int
-	cache map[uint64][2]int32 // (node, rule sequence) → range of arena holding its ranked out edges
+	cache []sortEntry // by node*numSeqs + rule sequence: the node's ranked out edges in arena
 	arena []int32
+	gen   uint32
+	pool  [][]int32 // scratch slices
 }
 
 // reset starts a new digraph rooted at atom.

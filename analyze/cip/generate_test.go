@@ -89,14 +89,17 @@ func (g *stereoGenerator) next() string {
 		return "[C" + g.at() + "H]%91(" + s(1) + ")[C" + g.at() + "H](" + s(1) + ")C[C" + g.at() + "H](" + s(1) + ")C%91"
 	case 7: // hetero centres
 		switch g.r.Intn(6) {
+		// Centres with a lone pair start after a first atom: where the
+		// centre itself opens the string, OpenSMILES readers disagree on
+		// where the lone pair stands (see the package report).
 		case 0:
-			return "[S" + g.at() + "](=O)(" + s(1) + ")" + s(1)
+			return "C[S" + g.at() + "](=O)" + s(1)
 		case 1:
-			return "[S" + g.at() + "+](" + s(1) + ")(" + s(1) + ")" + s(1)
+			return "C[S" + g.at() + "+](" + s(1) + ")" + s(1)
 		case 2:
 			return "[P" + g.at() + "](=O)(" + s(1) + ")(" + s(1) + ")" + s(1)
 		case 3:
-			return "[P" + g.at() + "](" + s(1) + ")(" + s(1) + ")" + s(1)
+			return "C[P" + g.at() + "](" + s(1) + ")" + s(1)
 		case 4:
 			return "[Si" + g.at() + "](" + s(1) + ")(" + s(1) + ")(" + s(1) + ")" + s(1)
 		default:

@@ -164,6 +164,13 @@ func TestRDKitDifferential(t *testing.T) {
 	for why, k := range reasons {
 		t.Logf("  explained %d: %s", k, why)
 	}
+	kinds := map[string]int{}
+	for _, ls := range mine {
+		for _, l := range ls {
+			kinds[l[strings.LastIndexByte(l, ':')+1:]]++
+		}
+	}
+	t.Logf("walden labels in the generated set, by letter: %v", kinds)
 	t.Logf("canonical SMILES: %d of %d read back by RDKit as the input molecule", canonSame, canonCompared)
 }
 

@@ -140,10 +140,16 @@ func (g *digraph) explore(r rule, a, b int32) int {
 		return c
 	}
 	seq := explorer(r)
-	qa := []int32{a}
-	qb := []int32{b}
+	qa := append(g.buf(), a)
+	qb := append(g.buf(), b)
+	sa, sb := g.buf(), g.buf()
+	defer func() {
+		g.put(qa)
+		g.put(qb)
+		g.put(sa)
+		g.put(sb)
+	}()
 	var as, bs []int32
-	var sa, sb []int32
 	for pos := 0; pos < len(qa) && pos < len(qb); pos++ {
 		na, nb := g.edges[qa[pos]].end, g.edges[qb[pos]].end
 		sa = g.out(na, sa[:0])
@@ -218,6 +224,18 @@ func (g *digraph) rank(n int32, es []int32, deep bool, seq *ruleSeq) (unique, ps
 			break
 		}
 	}
+	if enantio > 0 {
+		// The count above depends on the order the ligands came in;
+		// count again on the final order, where only neighbours in rank
+		// are compared, so that the answer is the same for any input
+		// order of the atoms.
+		enantio = 0
+		for i := 1; i < len(es); i++ {
+			if c := g.ligands(seq, es[i-1], es[i], deep); c > 1 || c < -1 {
+				enantio++
+			}
+		}
+	}
 	return unique, enantio == 1
 }
 
@@ -238,24 +256,54 @@ func (g *digraph) groups(seq *ruleSeq, es []int32) [][]int32 {
 // descriptor or the rule 6 reference changes; the slice must not be
 // modified.
 func (g *digraph) sortedOut(n int32, seq *ruleSeq) []int32 {
-	key := uint64(n)*numSeqs + uint64(seq.id)
-	if s, ok := g.cache[key]; ok {
-		return g.arena[s[0]:s[1]:s[1]]
+	k := int(n)*numSeqs + int(seq.id)
+	if k < len(g.cache) {
+		if c := g.cache[k]; c.gen == g.gen {
+			return g.arena[c.start:c.end:c.end]
+		}
 	}
-	es := g.out(n, nil)
+	es := g.out(n, g.buf())
 	g.rank(n, es, true, seq)
 	start := int32(len(g.arena))
 	g.arena = append(g.arena, es...)
-	if g.cache == nil {
-		g.cache = make(map[uint64][2]int32)
+	g.put(es)
+	for len(g.cache) <= k {
+		g.cache = append(g.cache, sortEntry{})
 	}
-	g.cache[key] = [2]int32{start, int32(len(g.arena))}
-	return es
+	end := int32(len(g.arena))
+	g.cache[k] = sortEntry{g.gen, start, end}
+	return g.arena[start:end:end]
+}
+
+// sortEntry records a cached ordering: arena[start:end], valid while
+// the digraph's generation is gen.
+type sortEntry struct {
+	gen        uint32
+	start, end int32
 }
 
 // stale forgets cached orderings after the root, an auxiliary descriptor
 // or the rule 6 reference changed.
 func (g *digraph) stale() {
-	clear(g.cache)
+	g.gen++
+	if g.gen == 0 { // wrapped: old entries could look current
+		clear(g.cache)
+		g.gen = 1
+	}
 	g.arena = g.arena[:0]
+}
+
+// buf takes a scratch slice from the digraph's pool.
+func (g *digraph) buf() []int32 {
+	if n := len(g.pool); n > 0 {
+		b := g.pool[n-1]
+		g.pool = g.pool[:n-1]
+		return b[:0]
+	}
+	return make([]int32, 0, 8)
+}
+
+// put returns a scratch slice to the pool.
+func (g *digraph) put(b []int32) {
+	g.pool = append(g.pool, b)
 }

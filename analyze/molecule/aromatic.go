@@ -17,8 +17,9 @@ package molecule
 //   - B with three neighbours and no charge: 0.
 // Elements other than B, C, N, O, P, S, As, Se, Te are never candidates;
 // a triple bond or two double bonds disqualify an atom. Rings considered
-// are all simple cycles of up to MaxAromaticRing atoms, and every pair of
-// them fused on one bond (so azulene's 10-electron perimeter counts).
+// are all simple cycles of up to MaxAromaticRing atoms holding at least
+// one double bond, and every pair of them fused on one bond (so azulene's
+// 10-electron perimeter counts).
 // Larger rings ([18]annulene) are not perceived: a documented limit.
 
 // MaxAromaticRing is the largest single ring tested for aromaticity.
@@ -101,6 +102,18 @@ func (m *Molecule) Aromaticity() (atoms, bonds []bool) {
 	n := len(m.Atoms)
 	atoms = make([]bool, n)
 	bonds = make([]bool, len(m.Bonds))
+	// Every aromatic ring of the model holds a double bond; without one
+	// there is nothing to find.
+	double := false
+	for i := range m.Bonds {
+		if m.Bonds[i].Order == 2 {
+			double = true
+			break
+		}
+	}
+	if !double || len(m.Bonds) < 3 {
+		return atoms, bonds
+	}
 	ring := m.RingBonds()
 	elec := make([]int8, n)
 	cand := false
@@ -126,11 +139,14 @@ func (m *Molecule) Aromaticity() (atoms, bonds []bool) {
 		}
 	}
 	for ci, c := range cycles {
-		sum := 0
+		sum, ones := 0, 0
 		for _, a := range c {
 			sum += int(elec[a])
+			if elec[a] == 1 {
+				ones++
+			}
 		}
-		if sum%4 == 2 {
+		if sum%4 == 2 && ones > 0 {
 			arom[ci] = true
 			mark(c)
 		}

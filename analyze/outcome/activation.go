@@ -91,10 +91,14 @@ func detectActivation(rs []Reactant, solvents []perceive.SolventEffect) activati
 		betaine.AddAtom(molecule.Atom{Element: molecule.N, Charge: -1, ImplicitH: 1, Bracket: true})
 		rest = append(rest, Reactant{Mol: betaine})
 		g := perceive.PerceiveReagents(rest)
-		if g.Nucleophile != nil && g.Nucleophile.Reactant < len(index) {
-			nu := *g.Nucleophile
-			nu.Reactant = index[nu.Reactant]
+		for _, cand := range g.Candidates {
+			if cand.Reactant >= len(index) || cand.Acid == "" {
+				continue
+			}
+			nu := perceive.Nucleophile{Candidate: cand, Deprotonated: true, By: -1, ProtonFrom: cand.Atom}
+			nu.Reactant = index[cand.Reactant]
 			a.nu, a.nuMol = &nu, rs[nu.Reactant].Mol
+			break
 		}
 	case phosphine >= 0 && halide != 0:
 		a = activation{kind: actAppel, reagent: phosphine}

@@ -29,9 +29,22 @@ func Predict(st Step) (o Outcome) {
 	if md.Defaulted {
 		o.Findings = append(o.Findings, Finding{Code: CodeNoSolvent, Severity: Info, Message: "no solvent given: the prediction assumes " + perceive.DefaultSolvent, Parties: Parties{Reactant: -1, Solvent: -1}})
 	}
+	ionised := make([]Reactant, len(st.Reagents))
+	for i, r := range st.Reagents {
+		ionised[i] = r
+		if r.Mol != nil {
+			ionised[i].Mol = perceive.Ionise(r.Mol)
+		}
+	}
+	st.Reagents = ionised
 	act := detectActivation(st.Reagents, md.Parts)
 	rg := perceive.PerceiveReagents(st.Reagents)
 
+	// An acid that is only a salt former (an amine hydrochloride) does
+	// not activate anything when the substrate has a real leaving group.
+	if (act.kind == actHX || act.kind == actDehydrate) && len(sub.Good()) > 0 {
+		act = activation{}
+	}
 	if act.kind == actSulfonylate {
 		return sulfonylate(o, st, sub, act)
 	}
@@ -75,6 +88,9 @@ func Predict(st Step) (o Outcome) {
 		c.block(SN1)
 		c.block(E1)
 	}
+	if dehalogenate(&o, st, sub, &site, c) || bromonium(&o, st, &site, c) || epoxideClosure(&o, st, &site, c) {
+		return o
+	}
 	for i := range Rules {
 		c.rule = &Rules[i]
 		Rules[i].Apply(c)
@@ -111,7 +127,7 @@ func usableSites(sub *perceive.Substrate, act activation) []perceive.Site {
 			}
 			s.Leaving.Kind = k
 			s.Leaving.Data, _ = perceive.Leaving(k)
-			s.Rank += s.Leaving.Data.SN2 + 9
+			s.Rank += 30 // the activating reagent says this is the site meant
 		} else if s.Leaving.Data.Poor {
 			continue
 		}

@@ -86,6 +86,7 @@ func substitute(sub *molecule.Molecule, c *scoring, ionised bool) *Product {
 		// The group stays on the molecule: cut the bond and give the
 		// oxygen (or nitrogen) back its hydrogen after work-up.
 		cutBond(b, s.Carbon, lg.Attach)
+		m = b.out
 		at := &m.Atoms[b.subMap[lg.Attach]]
 		if at.Charge > 0 {
 			at.Charge = 0
@@ -101,15 +102,24 @@ func substitute(sub *molecule.Molecule, c *scoring, ionised bool) *Product {
 			m.Atoms[b.subMap[s.Carbon]].ImplicitH++
 		} else {
 			cutBond(b, centre, c.cation.migrant)
+			m = b.out
 			b.attach(b.subMap[s.Carbon], b.subMap[c.cation.migrant])
 		}
 	}
 	nuAt := b.nuMap[c.nu.Atom]
 	b.attach(b.subMap[centre], nuAt)
 	if c.nu.Deprotonated {
-		takeProton(m, nuAt)
+		from := nuAt
+		if c.nu.ProtonFrom >= 0 {
+			from = b.nuMap[c.nu.ProtonFrom]
+		}
+		takeProton(m, from)
+		if from != nuAt && m.Atoms[nuAt].Aromatic {
+			rekekulise(m, nuAt)
+		}
 	} else {
 		bondAfterAttack(m, nuAt, c.nuMol.Atoms[c.nu.Atom].Charge)
+		shiftAzoleProton(m, nuAt)
 	}
 	p := &Product{Mol: m, Pathway: SN2}
 	if ionised {
@@ -220,12 +230,82 @@ func eliminate(sub *molecule.Molecule, c *scoring, p Mechanism) []Product {
 	for _, o := range opts {
 		sum += math.Pow(10, o.weight)
 	}
-	var out []Product
-	for _, o := range opts {
+	per := make([][]Product, len(opts))
+	for i, o := range opts {
 		share := math.Pow(10, o.weight) / sum
-		for _, g := range alkenes(sub, c, o.beta, p) {
-			g.Fraction *= share
-			out = append(out, g)
+		per[i] = alkenes(sub, c, o.beta, p)
+		for k := range per[i] {
+			per[i][k].Fraction *= share
+		}
+	}
+	// Symmetry-equivalent β-carbons give mirror-image alkenes at equal
+	// rates: only the configurations both share survive (a racemate).
+	for i := range opts {
+		for j := i + 1; j < len(opts); j++ {
+			if c.sub.Sym[opts[i].beta.Atom] != c.sub.Sym[opts[j].beta.Atom] || len(per[i]) != len(per[j]) {
+				continue
+			}
+			for k := range per[i] {
+				racemate(per[i][k].Mol, per[j][k].Mol)
+			}
+		}
+	}
+	var out []Product
+	for _, ps := range per {
+		out = append(out, ps...)
+	}
+	return out
+}
+
+// racemate compares two alkenes formed at equal rates from equivalent
+// β-carbons. When they are the same constitution but differ in
+// configuration (mirror images), the configurations whose CIP letters
+// differ between them are dropped from both: the product is racemic
+// there.
+func racemate(a, b *molecule.Molecule) {
+	if smiles.Canonical(a) == smiles.Canonical(b) || flat(a) != flat(b) {
+		return
+	}
+	la, lb := labels(a), labels(b)
+	keep := func(m *molecule.Molecule, mine, other map[int]string) {
+		kept := m.Tetrahedral[:0]
+		for _, t := range m.Tetrahedral {
+			if mine[t.Centre] == other[t.Centre] {
+				kept = append(kept, t)
+			}
+		}
+		m.Tetrahedral = kept
+	}
+	keep(a, la, lb)
+	keep(b, lb, la)
+}
+
+// flat is the canonical SMILES without any stereo.
+func flat(m *molecule.Molecule) string {
+	c := m.Clone()
+	c.Tetrahedral, c.CisTrans, c.Axial = nil, nil, nil
+	return smiles.Canonical(c)
+}
+
+// labels maps centre atoms to their CIP letters.
+func labels(m *molecule.Molecule) map[int]string {
+	out := map[int]string{}
+	for _, t := range m.Tetrahedral {
+		out[t.Centre] = label(m, t.Centre)
+	}
+	return out
+}
+
+// commonTetrahedral keeps the configurations written identically in a
+// and b (same atom order, as both come from one substrate).
+func commonTetrahedral(a, b *molecule.Molecule) []molecule.Tetrahedral {
+	var out []molecule.Tetrahedral
+	for _, t := range a.Tetrahedral {
+		for _, u := range b.Tetrahedral {
+			if t == u {
+				out = append(out, t)
+				break
+			}
 		}
 	}
 	return out
@@ -353,4 +433,31 @@ func bigger(m *molecule.Molecule, x int, subs []int, other int) int {
 		}
 	}
 	return best
+}
+
+// shiftAzoleProton: a neutral azole attacks through its pyridine-type
+// nitrogen and then loses the N–H proton of the other nitrogen, so the
+// product is the neutral N-alkyl azole (common practice).
+func shiftAzoleProton(m *molecule.Molecule, n int) {
+	if !m.Atoms[n].Aromatic || m.Atoms[n].Charge != 1 {
+		return
+	}
+	seen := map[int]bool{n: true}
+	queue := []int{n}
+	for len(queue) > 0 {
+		x := queue[0]
+		queue = queue[1:]
+		if x != n && m.Atoms[x].Element == molecule.N && m.Atoms[x].ImplicitH > 0 && m.Atoms[x].Charge == 0 {
+			m.Atoms[x].ImplicitH--
+			m.Atoms[n].Charge = 0
+			rekekulise(m, n)
+			return
+		}
+		for _, e := range m.Edges(x) {
+			if m.Bonds[e.Bond].Aromatic && !seen[e.Atom] {
+				seen[e.Atom] = true
+				queue = append(queue, e.Atom)
+			}
+		}
+	}
 }

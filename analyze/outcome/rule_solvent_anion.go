@@ -1,5 +1,7 @@
 package outcome
 
+import "walden/analyze/perceive"
+
 // solventAnionRule: protic solvents hydrogen-bond anions and slow their
 // SN2 (and E2) reactions; dipolar aprotic solvents leave them bare and
 // fast, by up to 10^6.
@@ -14,8 +16,14 @@ var solventAnionRule = Rule{
 			c.add(SN2, c.md.Anion)
 			c.say("anionic nucleophile in %s: solvent term %+.1f (log10, methanol = 0)", c.md.Name, c.md.Anion)
 		}
-		if c.base != nil && c.base.Anionic {
+		// Carbonates and phosphates stay largely undissolved in aprotic
+		// solvents and act at the solid surface: no naked-anion gain
+		// (common practice).
+		if c.base != nil && c.base.Anionic && !heterogeneous[c.base.Kind] {
 			c.add(E2, c.md.Anion)
 		}
 	},
 }
+
+// heterogeneous lists the inorganic bases used as suspensions.
+var heterogeneous = map[perceive.NucKind]bool{"carbonate": true, "bicarbonate": true, "phosphate": true, "hydride": true}

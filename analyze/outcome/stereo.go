@@ -6,9 +6,14 @@ import (
 	"walden/analyze/perceive"
 )
 
+// cipNodeLimit bounds the CIP digraph per centre so that a pathological
+// molecule cannot stall an editor; labels beyond it are left blank.
+const cipNodeLimit = 5000
+
 // label returns the CIP letter of atom a of m, or "".
 func label(m *molecule.Molecule, a int) string {
-	ds, _ := cip.Label(m)
+	l := cip.Labeller{NodeLimit: cipNodeLimit}
+	ds, _ := l.Label(m)
 	for _, d := range ds {
 		if d.Atoms[0] == a && d.Atoms[1] < 0 {
 			return d.Label.String()

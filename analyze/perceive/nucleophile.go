@@ -96,6 +96,7 @@ type Candidate struct {
 type Nucleophile struct {
 	Candidate
 	Deprotonated bool // a base present removed a proton first
+	ProtonFrom   int  // the atom that lost the proton (may differ from Atom for an azole anion), -1 when none
 	By           int  // reactant index of that base, -1 when none
 	Ambident     string
 	Alternatives []Candidate // other sites within reach (for the close-sites warning)
@@ -159,6 +160,9 @@ func acidSites(m *molecule.Molecule, r *Rings) []Candidate {
 }
 
 func oxygenAcid(m *molecule.Molecule, o int) string {
+	if !allSingle(m, o) {
+		return ""
+	}
 	if m.Degree(o) == 0 {
 		return "water"
 	}
@@ -221,13 +225,16 @@ func nitrogenAcid(m *molecule.Molecule, r *Rings, n int) string {
 		case ringN == 3:
 			return "triazole"
 		case ringN == 2:
-			if fusedBenzo(m, r, n) {
-				return "benzimidazole"
-			}
 			for _, e := range m.Edges(n) {
 				if m.Atoms[e.Atom].Element == molecule.N {
+					if fusedBenzo(m, r, n) {
+						return "indazole"
+					}
 					return "pyrazole"
 				}
+			}
+			if fusedBenzo(m, r, n) {
+				return "benzimidazole"
 			}
 			return "imidazole"
 		default:
@@ -259,6 +266,8 @@ func nitrogenAcid(m *molecule.Molecule, r *Rings, n int) string {
 		return "sulfonamide"
 	case acyl >= 2:
 		return "imide"
+	case acyl == 1 && arylN:
+		return "anilide"
 	case acyl == 1:
 		return "amide"
 	case arylN:
@@ -545,6 +554,9 @@ func neutralKind(m *molecule.Molecule, r *Rings, i int) NucKind {
 		if h == 2 && m.Degree(i) == 0 {
 			return "water"
 		}
+		if !allSingle(m, i) || h == 0 {
+			return ""
+		}
 		switch oxygenAcid(m, i) {
 		case "alcohol":
 			return "alcohol"
@@ -592,3 +604,7 @@ func hinderedAmine(m *molecule.Molecule, n int) bool {
 	}
 	return branched >= 2
 }
+
+// AcidSites lists the X–H groups of m a base could remove, with the pKa
+// of each (from the acid-site table).
+func AcidSites(m *molecule.Molecule) []Candidate { return acidSites(m, NewRings(m)) }

@@ -9,9 +9,13 @@ import (
 
 // deprotonationWindow is how far (pKa units) above a base's pKaH an acid
 // site may lie and still be alkylated through its anion: carbonates in
-// DMF alkylate azoles (pKa ~14) although the equilibrium lies on the acid
+// DMF alkylate azoles and indoles (pKa 14-16) although the equilibrium lies on the acid
 // side, because the anion is consumed as it forms (common practice).
-const deprotonationWindow = 4.0
+const deprotonationWindow = 6.0
+
+// neutralBaseWindow is the same reach for neutral amine bases, which only
+// shift an equilibrium (Et3N with phenols, not with alcohols).
+const neutralBaseWindow = 2.0
 
 // notNucleophiles are kinds that act only as bases or spectators.
 var notNucleophiles = map[NucKind]bool{
@@ -32,6 +36,14 @@ func PerceiveReagents(rs []Reactant) Reagents {
 		}
 		m := r.Mol
 		ring := NewRings(m)
+		for j, a := range m.Atoms {
+			if isAlkali(a.Element) && a.Charge == 0 && m.Degree(j) == 0 {
+				// A bare alkali metal deprotonates N–H and O–H acids
+				// (potassium on phthalimide: common practice).
+				d := nucData["hydride"]
+				intrinsic = append(intrinsic, Candidate{Reactant: i, Atom: j, Kind: "hydride", Charge: -1, Data: d})
+			}
+		}
 		ionic := false
 		for _, a := range m.Atoms {
 			switch a.Element {
@@ -94,8 +106,12 @@ func PerceiveReagents(rs []Reactant) Reagents {
 	if out.Base != nil {
 		// Each reactant's most acidic site within reach becomes an anion.
 		best := map[int]int{}
+		window := deprotonationWindow
+		if !out.Base.Anionic {
+			window = neutralBaseWindow
+		}
 		for k, a := range acids {
-			if a.AcidPKa > out.Base.PKaH+deprotonationWindow {
+			if a.AcidPKa > out.Base.PKaH+window {
 				continue
 			}
 			if a.Reactant == out.Base.Reactant && a.Atom == out.Base.Atom {
@@ -112,11 +128,41 @@ func PerceiveReagents(rs []Reactant) Reagents {
 			// Other sites of the same molecule as acidic as the best
 			// one (within one unit) are close competitors.
 			for j, o := range acids {
-				if j != k && o.Reactant == r && o.AcidPKa <= a.AcidPKa+1 && o.AcidPKa <= out.Base.PKaH+deprotonationWindow {
+				if j != k && o.Reactant == r && o.AcidPKa <= a.AcidPKa+1 && o.AcidPKa <= out.Base.PKaH+window {
 					cands = append(cands, o)
 				}
 			}
 		}
+	}
+	// A base that deprotonated another reagent is spent doing so (about
+	// one equivalent): it no longer competes as a nucleophile.
+	if len(deprot) > 0 && out.Base != nil {
+		kept := cands[:0]
+		for _, c := range cands {
+			if c.Reactant == out.Base.Reactant && c.Atom == out.Base.Atom && !deprot[c.Reactant] {
+				continue
+			}
+			kept = append(kept, c)
+		}
+		cands = kept
+	}
+	// Iodide and bromide salts beside another nucleophile are catalysts
+	// (in situ Finkelstein exchange), not the nucleophile of the step
+	// (common practice).
+	other := false
+	for _, c := range cands {
+		if !halideKinds[c.Kind] && c.Data.N >= 2 {
+			other = true
+		}
+	}
+	if other {
+		kept := cands[:0]
+		for _, c := range cands {
+			if !halideKinds[c.Kind] {
+				kept = append(kept, c)
+			}
+		}
+		cands = kept
 	}
 	// In a molecule carrying an anion, its neutral sites do not compete.
 	anionIn := map[int]bool{}
@@ -148,10 +194,15 @@ func PerceiveReagents(rs []Reactant) Reagents {
 		return out
 	}
 	best := cands[0]
-	nu := &Nucleophile{Candidate: best, By: -1, Neutral: best.Charge == 0}
+	nu := &Nucleophile{Candidate: best, By: -1, Neutral: best.Charge == 0, ProtonFrom: -1}
 	if best.Acid != "" {
 		nu.Deprotonated = true
 		nu.By = out.Base.Reactant
+		nu.ProtonFrom = best.Atom
+		// The base is spent making the anion, which is then the base of
+		// the step (NaH, carbonates and amide bases are used this way:
+		// common practice).
+		out.Base = &Base{Reactant: best.Reactant, Atom: best.Atom, Kind: best.Kind, PKaH: best.AcidPKa, Bulk: best.Data.Bulk, Anionic: true, Data: best.Data}
 	}
 	m := rs[best.Reactant].Mol
 	switch best.Kind {
@@ -166,7 +217,12 @@ func PerceiveReagents(rs []Reactant) Reagents {
 	case "enolate":
 		nu.Ambident = "enolates attack soft alkyl halides mainly through carbon; O-alkylation is the minor path"
 	case "azolide":
-		nu.Atom = leastHinderedRingN(m, best.Atom)
+		// Benzo-fused azoles (indazole N1, benzimidazole) and lactam-type
+		// N–H alkylate at the nitrogen that bore the hydrogen; simple
+		// azoles at the less hindered nitrogen (common practice).
+		if best.Acid == "pyrazole" || best.Acid == "imidazole" || best.Acid == "triazole" {
+			nu.Atom = leastHinderedRingN(m, best.Atom)
+		}
 		if nu.Atom != best.Atom {
 			nu.Ambident = "the azole anion can attack through either ring nitrogen; the less hindered one is taken"
 		}
@@ -203,12 +259,61 @@ func withEntry(d NucData, e *reagents.Reagent, m *molecule.Molecule, atom int) N
 	return d
 }
 
+var halideKinds = map[NucKind]bool{"iodide": true, "bromide": true, "chloride": true}
+
 func isAmine(k NucKind) bool {
 	switch k {
 	case "ammonia", "amine-primary", "amine-secondary", "amine-tertiary", "amine-hindered", "pyridine", "azole":
 		return true
 	}
 	return false
+}
+
+func isAlkali(e molecule.Element) bool {
+	switch e {
+	case 3, 11, 19, 37, 55:
+		return true
+	}
+	return false
+}
+
+// Ionise returns m with every bond between an alkali or alkaline-earth
+// metal and another atom written as ions (N#C[Na] → N#[C-].[Na+]), so
+// that salts drawn with covalent metal bonds are read like salts. It
+// returns m itself when there is nothing to change.
+func Ionise(m *molecule.Molecule) *molecule.Molecule {
+	metal := func(e molecule.Element) bool { return isAlkali(e) || e == 12 || e == 20 || e == 30 }
+	need := false
+	for _, b := range m.Bonds {
+		if metal(m.Atoms[b.A].Element) != metal(m.Atoms[b.B].Element) {
+			need = true
+		}
+	}
+	if !need {
+		return m
+	}
+	out := &molecule.Molecule{}
+	for _, a := range m.Atoms {
+		out.AddAtom(a)
+	}
+	for _, b := range m.Bonds {
+		ma, mb := metal(m.Atoms[b.A].Element), metal(m.Atoms[b.B].Element)
+		if ma == mb {
+			out.AddBond(b)
+			continue
+		}
+		mi, x := b.A, b.B
+		if mb {
+			mi, x = b.B, b.A
+		}
+		out.Atoms[mi].Charge++
+		out.Atoms[mi].Bracket = true
+		out.Atoms[x].Charge--
+		out.Atoms[x].Bracket = true
+	}
+	out.Tetrahedral = m.Tetrahedral
+	out.CisTrans = m.CisTrans
+	return out
 }
 
 func hasMetal(m *molecule.Molecule) bool {

@@ -176,8 +176,18 @@ func FuzzLoad(f *testing.F) {
 	f.Add(seed)
 	f.Add([]byte(`reagent A, "b,c": smiles=C roles=base source="x"`))
 	f.Add([]byte("alias a = b\n\r\n\"\"\"=:"))
+	// A small base dictionary keeps each run short, so that the parser
+	// itself gets most of the executions; the seeds above cover the
+	// built-in one through TestLabFileGolden.
+	var small []*Reagent
+	for _, n := range []string{"NaN3", "NaI", "KI", "DIPEA"} {
+		e, _ := Lookup(n)
+		small = append(small, e.Reagent)
+	}
+	dmf, _ := Lookup("DMF")
+	base := build(small, []*Solvent{dmf.Solvent})
 	f.Fuzz(func(t *testing.T, text []byte) {
-		d, errs := Load(text, "fuzz")
+		d, errs := base.Extend(text, "fuzz")
 		if d == nil {
 			t.Fatal("nil dictionary")
 		}

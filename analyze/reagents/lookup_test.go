@@ -227,3 +227,22 @@ func TestMixture(t *testing.T) {
 		t.Errorf("equal parts by default: %v", m)
 	}
 }
+
+// The server looks names up from many requests at once; run with -race.
+func TestConcurrentUse(t *testing.T) {
+	d, _ := Load([]byte(`alias Zed = NaN3`), "lab")
+	done := make(chan bool)
+	for i := 0; i < 4; i++ {
+		go func() {
+			for j := 0; j < 200; j++ {
+				Lookup("NaN3")
+				d.Lookup("Zed")
+				Suggest("sodium azde", 3)
+			}
+			done <- true
+		}()
+	}
+	for i := 0; i < 4; i++ {
+		<-done
+	}
+}

@@ -14,10 +14,10 @@ import (
 // allenes, charged and fused aromatics, isotopes and classes, several
 // components. Structures are common textbook examples (common practice).
 var handSet = []string{
-	"C[C@H]1CC[C@@H](C)CC1",             // cis-1,4-dimethylcyclohexane
-	"C[C@H]1CC[C@H](C)CC1",              // trans
-	"O[C@H](C(=O)O)[C@@H](O)C(=O)O",     // meso-tartaric acid
-	"O[C@H](C(=O)O)[C@H](O)C(=O)O",      // (R,R) or (S,S)
+	"C[C@H]1CC[C@@H](C)CC1",                             // cis-1,4-dimethylcyclohexane
+	"C[C@H]1CC[C@H](C)CC1",                              // trans
+	"O[C@H](C(=O)O)[C@@H](O)C(=O)O",                     // meso-tartaric acid
+	"O[C@H](C(=O)O)[C@H](O)C(=O)O",                      // (R,R) or (S,S)
 	"O[C@H]1[C@H](O)[C@@H](O)[C@H](O)[C@@H](O)[C@@H]1O", // an inositol
 	"Cl[C@H]1[C@H](Cl)[C@@H](Cl)[C@H](Cl)[C@@H](Cl)[C@@H]1Cl",
 	"C/C=C/C=C/C",

@@ -5,8 +5,8 @@ import "walden/analyze/molecule"
 // cisTransMarks chooses '/' and '\' for the single bonds around every
 // recorded double-bond configuration, in the order the double bonds are
 // written, so that one mark shared by two conjugated double bonds serves
-// both (OpenSMILES section 3.9.5). Every single bond at both ends is
-// marked, which the reader checks for consistency.
+// both (OpenSMILES section 3.9.5). One single bond at each end is
+// marked.
 func (w *writer) cisTransMarks() {
 	m := w.m
 	if len(m.CisTrans) == 0 {
@@ -135,21 +135,63 @@ func (w *writer) knownSide(end, ref int) (int, int32) {
 	return 0, -1
 }
 
-// placeMarks puts ref on side s of end and the other single-bonded
-// neighbour on the other side, leaving marks already set.
+// placeMarks puts ref on side s of end by marking one single bond at
+// end, unless one is marked already (by a conjugated neighbour, checked
+// consistent by the caller). It prefers a neighbour that is not itself
+// the end of an unconfigured double bond, where a mark on each side would
+// be read as a configuration that was never given.
 func (w *writer) placeMarks(end, ref, s int, g int32) {
-	for _, e := range w.m.Edges(end) {
-		if w.m.Bonds[e.Bond].Order != 1 || w.bdir[e.Bond] != 0 {
+	m := w.m
+	best, bestScore := -1, -1
+	for _, e := range m.Edges(end) {
+		if m.Bonds[e.Bond].Order != 1 {
 			continue
 		}
-		want := s
-		if e.Atom != ref {
-			want = -s
+		if w.bdir[e.Bond] != 0 {
+			return
 		}
-		if w.m.Bonds[e.Bond].A != end {
-			want = -want
+		score := 0
+		if !w.freeDouble(e.Atom) {
+			score += 2
 		}
-		w.bdir[e.Bond] = int8(want)
-		w.group[e.Bond] = g
+		if e.Atom == ref {
+			score++
+		}
+		if score > bestScore {
+			best, bestScore = e.Bond, score
+		}
 	}
+	if best < 0 {
+		return
+	}
+	want := s
+	if m.Bonds[best].Other(end) != ref {
+		want = -s
+	}
+	if m.Bonds[best].A != end {
+		want = -want
+	}
+	w.bdir[best] = int8(want)
+	w.group[best] = g
+}
+
+// freeDouble reports whether atom a has a written double bond that
+// carries no recorded configuration.
+func (w *writer) freeDouble(a int) bool {
+	m := w.m
+	for _, e := range m.Edges(a) {
+		if m.Bonds[e.Bond].Order != 2 || w.aromaticBond(e.Bond) {
+			continue
+		}
+		configured := false
+		for _, ct := range m.CisTrans {
+			if ct.Ends[0] == a || ct.Ends[1] == a {
+				configured = true
+			}
+		}
+		if !configured {
+			return true
+		}
+	}
+	return false
 }

@@ -37,18 +37,18 @@ func TestParseHydrogens(t *testing.T) {
 		{"CCO", []int{3, 2, 1}},
 		{"C=O", []int{2, 0}},
 		{"C#N", []int{1, 0}},
-		{"CS(=O)(=O)C", []int{3, 0, 0, 0, 3}},   // S at valence 6
-		{"CS(=O)C", []int{3, 0, 0, 3}},          // S at valence 4
-		{"CP(C)C", []int{3, 0, 3, 3}},           // P at valence 3
-		{"O=P(O)(O)O", []int{0, 0, 1, 1, 1}},    // P at valence 5
-		{"[NH4+]", []int{4}},                    // stated
-		{"[CH3-]", []int{3}},                    // stated
-		{"[Na+].[Cl-]", []int{0, 0}},            // bracket atoms default to none
-		{"[H][H]", []int{0, 0}},                 // hydrogen atoms are atoms
-		{"ClCBr", []int{0, 2, 0}},               // two-letter organic atoms
-		{"c1ccccc1", []int{1, 1, 1, 1, 1, 1}},   // benzene
-		{"c1cc[nH]c1", []int{1, 1, 1, 1, 1}},    // pyrrole
-		{"c1ccncc1", []int{1, 1, 1, 0, 1, 1}},   // pyridine
+		{"CS(=O)(=O)C", []int{3, 0, 0, 0, 3}},         // S at valence 6
+		{"CS(=O)C", []int{3, 0, 0, 3}},                // S at valence 4
+		{"CP(C)C", []int{3, 0, 3, 3}},                 // P at valence 3
+		{"O=P(O)(O)O", []int{0, 0, 1, 1, 1}},          // P at valence 5
+		{"[NH4+]", []int{4}},                          // stated
+		{"[CH3-]", []int{3}},                          // stated
+		{"[Na+].[Cl-]", []int{0, 0}},                  // bracket atoms default to none
+		{"[H][H]", []int{0, 0}},                       // hydrogen atoms are atoms
+		{"ClCBr", []int{0, 2, 0}},                     // two-letter organic atoms
+		{"c1ccccc1", []int{1, 1, 1, 1, 1, 1}},         // benzene
+		{"c1cc[nH]c1", []int{1, 1, 1, 1, 1}},          // pyrrole
+		{"c1ccncc1", []int{1, 1, 1, 0, 1, 1}},         // pyridine
 		{"O=c1cc[nH]cc1", []int{0, 0, 1, 1, 1, 1, 1}}, // 4-pyridone
 		{"Cc1ccccc1", []int{3, 0, 1, 1, 1, 1, 1}},
 		{"*C", []int{0, 3}},
@@ -144,13 +144,13 @@ func TestKekulise(t *testing.T) {
 		{"o1cccc1", 2},
 		{"c1cc[o+]cc1", 3},
 		{"c1ccc2c(c1)c1ccccc1c1ccccc21", 9}, // triphenylene
-		{"c1ccc(cc1)-c1ccccc1", 6},         // biphenyl, explicit single
-		{"c1ccc(cc1)c1ccccc1", 6},          // biphenyl, implicit bond
+		{"c1ccc(cc1)-c1ccccc1", 6},          // biphenyl, explicit single
+		{"c1ccc(cc1)c1ccccc1", 6},           // biphenyl, implicit bond
 		{"c12ccccc1cccc2", 5},
-		{"n1ccnc1", -1},                     // imidazole without [nH]
-		{"c1ccnc1", -1},                     // pyrrole without [nH]
-		{"c1cccc1", -1},                     // cyclopentadienyl without charge
-		{"cC", -1},                          // aromatic atom outside a ring
+		{"n1ccnc1", -1}, // imidazole without [nH]
+		{"c1ccnc1", -1}, // pyrrole without [nH]
+		{"c1cccc1", -1}, // cyclopentadienyl without charge
+		{"cC", -1},      // aromatic atom outside a ring
 	}
 	for _, tt := range tests {
 		t.Run(tt.smiles, func(t *testing.T) {

@@ -283,6 +283,7 @@ func (p *parser) doubleBonds() {
 		}
 		var refs [2]int
 		var sides [2]int
+		clash := [2]int{-1, -1}
 		ok, conflict := true, false
 		for s := range 2 {
 			refs[s] = -1
@@ -297,13 +298,23 @@ func (p *parser) doubleBonds() {
 				if refs[s] < 0 {
 					refs[s], sides[s] = e.Atom, side
 				} else if side == sides[s] {
-					sp := m.Bonds[e.Bond].Span
-					p.errorf(sp.Start, sp.End, "conflicting '/' '\\' marks: two neighbours of atom %d are both placed on the same side of its double bond; flip one mark", ends[s]+1)
-					ok, conflict = false, true
+					clash[s] = e.Bond
 				}
 			}
 			if refs[s] < 0 {
 				ok = false
+			}
+		}
+		// Two neighbours on one side is an error only when the bond is
+		// configured at all (marks at both ends); otherwise those marks
+		// serve neighbouring double bonds.
+		if ok {
+			for s := range 2 {
+				if b := clash[s]; b >= 0 {
+					sp := m.Bonds[b].Span
+					p.errorf(sp.Start, sp.End, "conflicting '/' '\\' marks: two neighbours of atom %d are both placed on the same side of its double bond; flip one mark", ends[s]+1)
+					ok, conflict = false, true
+				}
 			}
 		}
 		for s := range 2 {

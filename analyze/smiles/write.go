@@ -70,11 +70,11 @@ type writer struct {
 type tokenKind uint8
 
 const (
-	tAtom tokenKind = iota
-	tRing           // ring-closure digit at atom
-	tBond           // tree bond before a child
-	tOpen           // '('
-	tClose          // ')'
+	tAtom  tokenKind = iota
+	tRing            // ring-closure digit at atom
+	tBond            // tree bond before a child
+	tOpen            // '('
+	tClose           // ')'
 	tDot
 )
 

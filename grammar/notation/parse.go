@@ -36,9 +36,18 @@ type parser struct {
 	mark0  *Mark // the step's Mark, Label and Arrow, allocated with it
 	label0 *Label
 	arrow0 *Arrow
+
+	// batch is set by ParseLines: slabs are large and shared by lines.
+	batch    bool
+	stepSlab []stepNodes
+	qptr     []*Quantity // backing of the terms' Quantities lists
+	ptrSlab  []*Term
 }
 
-const slabSize = 6
+const (
+	slabSize  = 6   // nodes per slab when a line needs more than sizeSlabs foresaw
+	batchSlab = 128 // nodes per slab in ParseLines
+)
 
 // parsers keeps parser state, token buffers included, between calls:
 // the server parses every line of a page on each edit.
@@ -50,7 +59,7 @@ func (p *parser) release() {
 	// Drop what the tree and the errors hold; the token buffers hold no
 	// pointers and need no clearing.
 	p.src, p.str, p.errs = nil, "", nil
-	p.termSlab, p.subSlab, p.qtySlab = nil, nil, nil
+	p.termSlab, p.subSlab, p.qtySlab, p.qptr = nil, nil, nil, nil
 	p.mark0, p.label0, p.arrow0 = nil, nil, nil
 	parsers.Put(p)
 }
@@ -58,6 +67,9 @@ func (p *parser) release() {
 // sizeSlabs makes the node slabs as large as the tokens say they will
 // need to be, so that most lines take one allocation per kind of node.
 func (p *parser) sizeSlabs(toks []tok) {
+	if p.batch {
+		return
+	}
 	terms, subs, qtys := 1, 0, 0
 	for _, t := range toks {
 		switch t.kind {
@@ -86,9 +98,16 @@ func (p *parser) sizeSlabs(toks []tok) {
 	p.qtySlab = make([]Quantity, 0, min(qtys, 2*terms))
 }
 
+func (p *parser) slabSize() int {
+	if p.batch {
+		return batchSlab
+	}
+	return slabSize
+}
+
 func (p *parser) newTerm() *Term {
 	if len(p.termSlab) == cap(p.termSlab) {
-		p.termSlab = make([]Term, 0, slabSize)
+		p.termSlab = make([]Term, 0, p.slabSize())
 	}
 	p.termSlab = p.termSlab[:len(p.termSlab)+1]
 	return &p.termSlab[len(p.termSlab)-1]
@@ -96,7 +115,7 @@ func (p *parser) newTerm() *Term {
 
 func (p *parser) newSubstance() *Substance {
 	if len(p.subSlab) == cap(p.subSlab) {
-		p.subSlab = make([]Substance, 0, slabSize)
+		p.subSlab = make([]Substance, 0, p.slabSize())
 	}
 	p.subSlab = p.subSlab[:len(p.subSlab)+1]
 	return &p.subSlab[len(p.subSlab)-1]
@@ -104,7 +123,7 @@ func (p *parser) newSubstance() *Substance {
 
 func (p *parser) newQuantity() *Quantity {
 	if len(p.qtySlab) == cap(p.qtySlab) {
-		p.qtySlab = make([]Quantity, 0, slabSize)
+		p.qtySlab = make([]Quantity, 0, p.slabSize())
 	}
 	p.qtySlab = p.qtySlab[:len(p.qtySlab)+1]
 	return &p.qtySlab[len(p.qtySlab)-1]
@@ -123,14 +142,53 @@ func Parse(line []byte, base source.Pos) (*Step, source.ErrorList) {
 	p := parsers.Get().(*parser)
 	defer p.release()
 	p.src, p.base = line, base
-	// The step and its single nodes share one allocation.
-	one := &struct {
-		st      Step
-		mark    Mark
-		label   Label
-		arrow   Arrow
-		comment Comment
-	}{}
+	if len(line) <= MaxLineLength {
+		p.str = string(line) // a longer line is refused unread
+	}
+	return p.parse()
+}
+
+// ParseLines parses the step lines of one host text, given by their
+// spans (as grammar/notebook finds them), and returns the steps and each
+// line's errors (nil for a clean line), in the order of spans. It gives
+// the same trees as calling Parse on each line, but shares one copy of
+// the text and large node slabs among the lines, so that reading a whole
+// page costs a few allocations per hundred lines instead of several per
+// line.
+func ParseLines(text []byte, spans []source.Span) ([]*Step, []source.ErrorList) {
+	p := &parser{batch: true}
+	host := string(text)
+	steps := make([]*Step, len(spans))
+	errs := make([]source.ErrorList, len(spans))
+	for i, sp := range spans {
+		p.src, p.str, p.base, p.errs = text[sp.Start:sp.End], host[sp.Start:sp.End], sp.Start, nil
+		steps[i], errs[i] = p.parse()
+	}
+	return steps, errs
+}
+
+// stepNodes holds a step and its single nodes, allocated together.
+type stepNodes struct {
+	st      Step
+	mark    Mark
+	label   Label
+	arrow   Arrow
+	comment Comment
+}
+
+// parse reads p.src.
+func (p *parser) parse() (*Step, source.ErrorList) {
+	line := p.src
+	var one *stepNodes
+	if p.batch {
+		if len(p.stepSlab) == cap(p.stepSlab) {
+			p.stepSlab = make([]stepNodes, 0, batchSlab)
+		}
+		p.stepSlab = p.stepSlab[:len(p.stepSlab)+1]
+		one = &p.stepSlab[len(p.stepSlab)-1]
+	} else {
+		one = new(stepNodes)
+	}
 	p.mark0, p.label0, p.arrow0 = &one.mark, &one.label, &one.arrow
 	st := &one.st
 	st.Span = p.span(0, len(line))
@@ -140,7 +198,6 @@ func Parse(line []byte, base source.Pos) (*Step, source.ErrorList) {
 			len(line), MaxLineLength)
 		return st, p.errs
 	}
-	p.str = string(line)
 	p.checkBytes()
 	end := len(line)
 	if c := p.commentStart(); c >= 0 {
@@ -211,12 +268,17 @@ func (p *parser) checkBytes() {
 // must open the line or follow a space: a SMILES never holds a space and
 // never starts with '/', so " //" cannot be part of one.
 func (p *parser) commentStart() int {
-	for i := 0; i+1 < len(p.src); i++ {
-		if p.src[i] == '/' && p.src[i+1] == '/' && (i == 0 || p.src[i-1] == ' ' || p.src[i-1] == '\t' || p.skipSpace(0, i) == i) {
+	for from := 0; ; {
+		k := strings.Index(p.str[from:], "//")
+		if k < 0 {
+			return -1
+		}
+		i := from + k
+		if i == 0 || p.src[i-1] == ' ' || p.src[i-1] == '\t' || p.skipSpace(0, i) == i {
 			return i
 		}
+		from = i + 1
 	}
-	return -1
 }
 
 // mark reads a status mark "[x]", "[X]", "[-]" or "[ ]" at i. A mark
@@ -394,7 +456,17 @@ func (p *parser) terms(st *Step, toks []tok) {
 	for _, pt := range all {
 		count[pt.ph]++
 	}
-	backing := make([]*Term, len(all))
+	var backing []*Term
+	if p.batch {
+		if cap(p.ptrSlab)-len(p.ptrSlab) < len(all) {
+			p.ptrSlab = make([]*Term, 0, max(len(all), 4*batchSlab))
+		}
+		n := len(p.ptrSlab)
+		p.ptrSlab = p.ptrSlab[:n+len(all)]
+		backing = p.ptrSlab[n : n+len(all) : n+len(all)]
+	} else {
+		backing = make([]*Term, len(all))
+	}
 	next := [3]int{0, count[0], count[0] + count[1]}
 	for _, pt := range all {
 		backing[next[pt.ph]] = pt.t

@@ -281,3 +281,36 @@ func TestManyErrors(t *testing.T) {
 	}
 	assert.Equal(t, map[string]int{"control-character": maxErrors, "too-many-errors": 1}, codes)
 }
+
+// TestParseLines: the batch parser gives the same trees and errors as
+// Parse, line by line, at host offsets.
+func TestParseLines(t *testing.T) {
+	var text strings.Builder
+	var spans []source.Span
+	lines := []string{
+		"[x] azide: @mesylate + NaN3 (1.5 eq), DMF, 60 °C, 12 h -> C[C@@H](N=[N+]=[N-])CCc1ccccc1 // ok",
+		"CC(Br)C +", "", "@ + ,, NaN3 (1.5 eq", "(S)-4-phenylbutan-2-ol + potassium phthalimide, acetone–water 4:1, 0 °C to rt",
+		strings.Repeat("C", MaxLineLength+1), "CCBr«x»\xff",
+	}
+	for i := 0; i < 400; i++ { // enough lines to fill several slabs
+		l := lines[i%len(lines)]
+		text.WriteString("  ")
+		start := source.Pos(text.Len())
+		text.WriteString(l)
+		spans = append(spans, source.Span{Start: start, End: start + source.Pos(len(l))})
+		text.WriteString("\n")
+	}
+	host := []byte(text.String())
+	steps, errs := ParseLines(host, spans)
+	require.Len(t, steps, len(spans))
+	for i, sp := range spans {
+		want, wantErrs := Parse(host[sp.Start:sp.End], sp.Start)
+		assert.Equal(t, want.String(), steps[i].String())
+		assert.Equal(t, wantErrs, errs[i])
+	}
+	// Appending to one step's lists must not touch its neighbour's.
+	before := steps[1].String()
+	steps[0].Products = append(steps[0].Products, &Term{})
+	steps[0].Conditions = append(steps[0].Conditions, &Term{})
+	assert.Equal(t, before, steps[1].String())
+}

@@ -17,6 +17,13 @@ func (p *parser) term(toks []tok, sep *Sep) *Term {
 		t.sep = *sep // kept in the term: one allocation fewer
 		t.Sep = &t.sep
 	}
+	// The term's quantities are appended to the parser's shared list and
+	// taken as one capped sub-slice at the end: no allocation per term.
+	qmark := len(p.qptr)
+	if cap(p.qptr)-qmark < 8 {
+		p.qptr = make([]*Quantity, 0, max(p.slabSize(), 8)*2)
+		qmark = 0
+	}
 	var subBuf [2]*Substance
 	subs := subBuf[:0]
 	run := -1 // start in toks of the words not yet taken, or -1
@@ -48,7 +55,7 @@ func (p *parser) term(toks []tok, sep *Sep) *Term {
 		}
 		switch {
 		case q != nil:
-			t.Quantities = append(t.Quantities, q)
+			p.qptr = append(p.qptr, q)
 			p.errs = append(p.errs, errs...)
 			k += n
 		case tk.kind == tGroup:
@@ -58,6 +65,9 @@ func (p *parser) term(toks []tok, sep *Sep) *Term {
 			subs = append(subs, p.reference(tk))
 			k++
 		}
+	}
+	if n := len(p.qptr); n > qmark {
+		t.Quantities = p.qptr[qmark:n:n]
 	}
 	if len(subs) > 0 {
 		t.Substance = subs[0]
@@ -297,7 +307,7 @@ func (p *parser) group(t *Term, g tok) {
 			k += n
 		}
 		if qs != nil {
-			t.Quantities = append(t.Quantities, qs...)
+			p.qptr = append(p.qptr, qs...)
 			p.errs = append(p.errs, errs...)
 		} else {
 			a, b := piece[0].start, piece[len(piece)-1].end
@@ -339,30 +349,30 @@ func (p *parser) substance(run []tok) *Substance {
 		}
 		return s
 	}
+	// Mixture: cut the run at its joining marks into parts, each a list
+	// of pieces (words or parts of words), in stack buffers.
 	type piece struct{ start, end int }
-	var parts [][]piece
-	var cur []piece
-	var joins []int // where each joining mark stands
-	cut := func(at int) {
-		parts = append(parts, cur)
-		cur = nil
-		joins = append(joins, at)
-	}
+	var pieceBuf [16]piece
+	var boundBuf, joinBuf [8]int
+	var markBuf [8]joinMark
+	pieces, bounds, joins := pieceBuf[:0], boundBuf[:0], joinBuf[:0]
+	plain := true // only '/' marks, no spaces: the source text is the mixture's text
 	for _, tk := range run {
 		start := tk.start
-		for _, j := range p.mixtureJoins(tk) {
+		for _, j := range p.mixtureJoins(markBuf[:0], tk) {
 			if j.start > start {
-				cur = append(cur, piece{start, j.start})
+				pieces = append(pieces, piece{start, j.start})
 			}
-			cut(j.start)
+			bounds, joins = append(bounds, len(pieces)), append(joins, j.start)
+			plain = plain && j.end-j.start == 1 && p.src[j.start] == '/'
 			start = j.end
 		}
 		if tk.end > start {
-			cur = append(cur, piece{start, tk.end})
+			pieces = append(pieces, piece{start, tk.end})
 		}
 	}
-	parts = append(parts, cur)
-	whole := p.span(run[0].start, run[len(run)-1].end)
+	bounds = append(bounds, len(pieces))
+	plain = plain && len(run) == 1
 	build := func(ps []piece) *Substance {
 		s := p.newSubstance()
 		*s = Substance{Span: p.span(ps[0].start, ps[len(ps)-1].end), Kind: Word, Text: p.str[ps[0].start:ps[len(ps)-1].end]}
@@ -383,15 +393,13 @@ func (p *parser) substance(run []tok) *Substance {
 		}
 		return s
 	}
-	if len(parts) == 1 {
-		s := build(parts[0])
-		s.Span = whole
-		return s
-	}
+	whole := p.span(run[0].start, run[len(run)-1].end)
 	m := p.newSubstance()
-	*m = Substance{Span: whole, Kind: Mixture}
-	texts := make([]string, 0, len(parts))
-	for i, ps := range parts {
+	*m = Substance{Span: whole, Kind: Mixture, Parts: make([]*Substance, 0, len(bounds))}
+	from := 0
+	for i, to := range bounds {
+		ps := pieces[from:to]
+		from = to
 		if len(ps) == 0 {
 			at := joins[min(i, len(joins)-1)]
 			side := "after"
@@ -400,13 +408,20 @@ func (p *parser) substance(run []tok) *Substance {
 			}
 			p.errorf(at, at+1, "mixture-part", "expected a substance %s %s in a mixture; write both parts, as in 'THF/water'",
 				side, quote(badRune(p.str[at:])))
+			plain = false
 			continue
 		}
-		part := build(ps)
-		m.Parts = append(m.Parts, part)
-		texts = append(texts, part.Text)
+		m.Parts = append(m.Parts, build(ps))
 	}
-	m.Text = strings.Join(texts, "/")
+	if plain {
+		m.Text = p.str[run[0].start:run[0].end]
+	} else {
+		texts := make([]string, len(m.Parts))
+		for i, part := range m.Parts {
+			texts[i] = part.Text
+		}
+		m.Text = strings.Join(texts, "/")
+	}
 	return m
 }
 
@@ -426,23 +441,19 @@ func (p *parser) anyJoins(run []tok) bool {
 // only '/', and '/' inside a word when no part holds a SMILES bond or
 // bracket character ("THF/water", but not "F/C=C/F", where '/' is a
 // double-bond stereo mark).
-func (p *parser) mixtureJoins(tk tok) []struct{ start, end int } {
+func (p *parser) mixtureJoins(out []joinMark, tk tok) []joinMark {
 	w := p.str[tk.start:tk.end]
 	if w == "/" {
-		return []struct{ start, end int }{{tk.start, tk.end}}
+		return append(out, joinMark{tk.start, tk.end})
 	}
-	if !strings.ContainsAny(w, "/–—") {
-		return nil
-	}
-	slashes := strings.Contains(w, "/") && !strings.ContainsAny(w, "=#@[]()\\") && !strings.EqualFold(w, "o/n") && !strings.EqualFold(w, "v/v")
-	var out []struct{ start, end int }
+	slashes := strings.IndexByte(w, '/') >= 0 && !strings.ContainsAny(w, "=#@[]()\\") && !strings.EqualFold(w, "o/n") && !strings.EqualFold(w, "v/v")
 	for i := 0; i < len(w); {
 		switch {
 		case w[i] == '/' && slashes:
-			out = append(out, struct{ start, end int }{tk.start + i, tk.start + i + 1})
+			out = append(out, joinMark{tk.start + i, tk.start + i + 1})
 			i++
 		case strings.HasPrefix(w[i:], "–") || strings.HasPrefix(w[i:], "—"):
-			out = append(out, struct{ start, end int }{tk.start + i, tk.start + i + 3})
+			out = append(out, joinMark{tk.start + i, tk.start + i + 3})
 			i += 3
 		default:
 			i++
@@ -450,3 +461,6 @@ func (p *parser) mixtureJoins(tk tok) []struct{ start, end int } {
 	}
 	return out
 }
+
+// joinMark is where a mark joining two parts of a mixture stands.
+type joinMark struct{ start, end int }

@@ -131,8 +131,17 @@ func (it *lineIter) line() (start, end int, ok bool) {
 		return 0, 0, false
 	}
 	start = it.next
-	i := bytes.IndexAny(it.text[start:], "\r\n")
+	// IndexByte is vectorised and IndexAny is not; a lone CR is rare, so
+	// look for LF first and then for a CR before it.
+	rest := it.text[start:]
+	i := bytes.IndexByte(rest, '\n')
 	if i < 0 {
+		i = len(rest)
+	}
+	if j := bytes.IndexByte(rest[:i], '\r'); j >= 0 {
+		i = j
+	}
+	if i == len(rest) {
 		it.next = len(it.text)
 		return start, len(it.text), true
 	}

@@ -16,6 +16,10 @@ from rdkit.Chem import rdCIPLabeler
 RDLogger.DisableLog("rdApp.*")
 
 
+PARAMS = Chem.SmilesParserParams()
+PARAMS.removeHs = False  # keep [H] atoms so that atom numbers match walden's
+
+
 def canon(smi):
     m = Chem.MolFromSmiles(smi)
     if m is None:
@@ -32,7 +36,7 @@ def main():
         idx, smi, wcanon = (line.split("\t") + ["", ""])[:3]
         rec = {"i": int(idx)}
         try:
-            m = Chem.MolFromSmiles(smi)
+            m = Chem.MolFromSmiles(smi, PARAMS)
             if m is None:
                 rec["error"] = "rdkit cannot read it"
             else:
@@ -47,12 +51,12 @@ def main():
                         labels.append([i, j, b.GetProp("_CIPCode")])
                 rec["labels"] = labels
                 if wcanon:
-                    rec["same_canonical"] = canon(wcanon) == Chem.MolToSmiles(m)
-                    rec["rdkit_canonical"] = Chem.MolToSmiles(m)
+                    mine = canon(smi)
+                    rec["same_canonical"] = canon(wcanon) == mine
+                    rec["rdkit_canonical"] = mine
         except Exception as e:  # report, never stop the batch
             rec["error"] = "%s: %s" % (type(e).__name__, e)
         out.write(json.dumps(rec) + "\n")
-        out.flush() if False else None
 
 
 if __name__ == "__main__":
