@@ -332,6 +332,7 @@ func fileFinding(msg string) finding {
 
 // place converts a diagnostic's byte span into both kinds of position.
 func place(m *source.Mapper, cell int, d analyze.Diagnostic) finding {
+	d.Fixes, d.Related = nil, nil // not printed; dropping them keeps big runs small
 	f := finding{cell: cell, diag: d, start: m.Point(d.Span.Start), end: m.Point(d.Span.End)}
 	f.line, f.char, f.endLine, f.endChar = m.Range(d.Span)
 	return f

@@ -65,6 +65,15 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 		res.pred = nil
 		return res
 	}
+	if bad := unreadable(in); bad != "" {
+		// Predicting without a reagent or solvent the line names would
+		// answer another question than the chemist's.
+		res.hover = fmt.Sprintf("**not analysed**: '%s' could not be read; fix it and the prediction follows.", bad)
+		res.inlay = "not analysed"
+		res.pred = &Prediction{Mechanism: "none", NotAnalysed: fmt.Sprintf("'%s' could not be read", bad)}
+		res.diags = append(res.diags, placeCautions(in, cautionsFor(in))...)
+		return res
+	}
 	e.applyDefaults(in)
 	pred := e.predict(in)
 	cautions := cautionsFor(in)
@@ -83,6 +92,19 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 	res.inlay = inlayText(pred)
 	res.chem, res.cautions = pred, cautions
 	return res
+}
+
+// unreadable returns the text of the first reagent or solvent that did
+// not resolve, or "".
+func unreadable(in *stepInput) string {
+	for _, list := range [][]*substance{in.reagents, in.solvents} {
+		for _, s := range list {
+			if !s.known() {
+				return s.text
+			}
+		}
+	}
+	return ""
 }
 
 // declaration reports a line that only names a substance: no reagents,

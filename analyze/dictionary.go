@@ -4,17 +4,19 @@ import (
 	"sync"
 
 	"walden/analyze/molecule"
-	"walden/analyze/smiles"
 	"walden/analyze/reagents"
+	"walden/analyze/smiles"
 	"walden/grammar/source"
 )
 
 // dictionary is the Engine's view of the reagent and solvent dictionary:
 // the built-in tables plus the lab's own names file.
 type dictionary struct {
-	mols  sync.Map // SMILES of an entry → *molecule.Molecule, read once and shared (never changed)
-	d     *reagents.Dictionary
-	errs  source.ErrorList // problems in the lab's names file, positioned in it
+	mols      sync.Map // SMILES of an entry → *molecule.Molecule, read once and shared (never changed)
+	d         *reagents.Dictionary
+	errs      source.ErrorList // problems in the lab's names file, positioned in it
+	canonOnce sync.Once
+	canon     map[string]entry // canonical SMILES → entry, for entries written as SMILES
 	namesOnce sync.Once
 	names     []reagents.Name // for completion, sorted; made on first use
 }
@@ -75,4 +77,32 @@ func (d *dictionary) molecule(smi string) *molecule.Molecule {
 func (d *dictionary) allNames() []reagents.Name {
 	d.namesOnce.Do(func() { d.names = d.d.Names() })
 	return d.names
+}
+
+// bySMILES finds the entry whose SMILES (as weighed out, or the solvent's)
+// is the same structure as m.
+func (d *dictionary) bySMILES(m *molecule.Molecule) entry {
+	d.canonOnce.Do(func() {
+		d.canon = map[string]entry{}
+		for _, s := range d.d.Solvents() {
+			if mol := d.molecule(s.SMILES); mol != nil {
+				e := d.canon[smiles.Canonical(mol)]
+				if e.solvent == nil {
+					e.solvent = s
+				}
+				d.canon[smiles.Canonical(mol)] = e
+			}
+		}
+		for _, r := range d.d.Reagents() {
+			if mol := d.molecule(r.Whole); mol != nil {
+				k := smiles.Canonical(mol)
+				e := d.canon[k]
+				if e.reagent == nil {
+					e.reagent = r
+				}
+				d.canon[k] = e
+			}
+		}
+	})
+	return d.canon[smiles.Canonical(m)]
 }

@@ -173,3 +173,34 @@ func TestNeverPanics(t *testing.T) {
 		analyse(t, NewEngine(Config{}), page(l), Source{Kind: PlanFile, Text: []byte(l)})
 	}
 }
+
+// TestHoverOnAtom gives the CIP label and the role of a substrate atom.
+// (S)-(3-bromobutyl)benzene: C2 is S (checked with RDKit 2022.09
+// rdCIPLabeler) and bears the leaving group.
+func TestHoverOnAtom(t *testing.T) {
+	src := page("C[C@H](Br)CCc1ccccc1 + NaN3, DMF, 60 °C")
+	reps := analyse(t, NewEngine(Config{}), src)
+	at := strings.Index(string(src.Text), "[C@H]")
+	md, span, ok := reps[0].Hover(source.Pos(at + 2))
+	if !ok || string(src.Text[span.Start:span.End]) != "[C@H]" {
+		t.Fatalf("hover on the stereocentre: %v %q", ok, md)
+	}
+	for _, want := range []string{"atom 2", "CIP **S**", "reacting carbon", "S → R (inverted)"} {
+		if !strings.Contains(md, want) {
+			t.Errorf("atom hover lacks %q:\n%s", want, md)
+		}
+	}
+}
+
+// TestDefaultSolvent: the settings' solvent is used and said once.
+func TestDefaultSolvent(t *testing.T) {
+	rep := analyse(t, NewEngine(Config{DefaultSolvent: "DMSO"}), Source{Kind: PlanFile, Text: []byte("CCCCBr + NaN3")})[0]
+	var codes []string
+	for _, d := range rep.Diagnostics {
+		codes = append(codes, d.Code)
+	}
+	got := strings.Join(codes, " ")
+	if !strings.Contains(got, CodeDefaultSolvent) || strings.Contains(got, "no-solvent") {
+		t.Errorf("codes %q: want %s and not the outcome's no-solvent", got, CodeDefaultSolvent)
+	}
+}

@@ -61,7 +61,11 @@ func stepHover(in *stepInput, pred *prediction, cs []caution.Caution, h *handOn,
 		fmt.Fprintf(&b, "**not analysed**: %s\n", pred.notAnalysed)
 	} else if len(pred.products) > 0 {
 		p := pred.products[0]
-		fmt.Fprintf(&b, "**%s** → `%s` (major, %s)\n", pred.mechanism, p.smiles, percent(p.fraction))
+		mech := pred.mechanism
+		if mech == "" || mech == "none" {
+			mech = "no substitution at carbon" // e.g. O-sulfonylation: the C–O bond stays
+		}
+		fmt.Fprintf(&b, "**%s** → `%s` (major, %s)\n", mech, p.smiles, percent(p.fraction))
 	} else if pred.mechanism == "" || pred.mechanism == "none" {
 		b.WriteString("**no reaction** predicted\n")
 	} else {

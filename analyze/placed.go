@@ -12,7 +12,7 @@ type placedStep struct {
 	span    source.Span // the line in the host
 	res     *stepResult
 	text    string // the line
-	nLabels int // how many labels (Report.labels) are visible to the step
+	nLabels int    // how many labels (Report.labels) are visible to the step
 }
 
 // report makes the exported StepReport, in host positions.

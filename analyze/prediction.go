@@ -68,10 +68,10 @@ type partyRef struct {
 type fixKind int
 
 const (
-	fixSwapSolvent fixKind = iota + 1 // replace the solvent by text
-	fixActivate                       // insert an activation step before this one
-	fixReplaceReagent                 // replace a reagent by text
-	fixTemperature                    // replace (or add) the temperature
+	fixSwapSolvent    fixKind = iota + 1 // replace the solvent by text
+	fixActivate                          // insert an activation step before this one
+	fixReplaceReagent                    // replace a reagent by text
+	fixTemperature                       // replace (or add) the temperature
 )
 
 // chemFix is a fix in chemical terms, turned into edits by fixes.go.

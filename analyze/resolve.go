@@ -54,6 +54,11 @@ func (r *resolver) substance(s *notation.Substance, term *notation.Term) *substa
 		m, err := smiles.Parse(s.Text)
 		if err == nil {
 			out.mol, out.smiles, out.asSMILES = m, s.Text, true
+			// A solvent or reagent written as SMILES is still that entry:
+			// "CN(C)C=O" is DMF to the outcome rules.
+			if e := r.dict.bySMILES(m); e.reagent != nil || e.solvent != nil {
+				out.reagent, out.solvent = e.reagent, e.solvent
+			}
 			return out
 		}
 		if looksLikeSMILES(s.Text) {

@@ -21,14 +21,14 @@ type stepResult struct {
 	tokens    []Token
 	inlay     string
 	fixes     []Fix
-	hover     string      // Markdown for the whole step, when fixed at analysis (else built from chem)
+	hover     string // Markdown for the whole step, when fixed at analysis (else built from chem)
 	// What hover text is built from, on demand: a step's hover is read
 	// far less often than it is analysed, so the Markdown is not kept.
 	in       *stepInput
 	chem     *prediction
 	cautions []caution.Caution
-	slots     []slot      // where completion applies
-	pred      *Prediction // nil when nothing was predicted
+	slots    []slot      // where completion applies
+	pred     *Prediction // nil when nothing was predicted
 }
 
 // refUse is one "@label" in a step.
@@ -71,17 +71,17 @@ func (h *handOn) key() string {
 
 // substance is one resolved substance of a step.
 type substance struct {
-	text    string
-	span    source.Span // relative to the line
-	term    *notation.Term
-	kind    notation.SubstanceKind
-	mol     *molecule.Molecule
-	smiles  string // as read (the written SMILES, the dictionary's, or the referenced product's)
-	reagent *reagents.Reagent
-	solvent *reagents.Solvent
-	ref     string  // the label, when the substance is "@label"
-	from    *handOn // the referenced step's product
-	asSMILES bool   // read from SMILES written in the line
+	text     string
+	span     source.Span // relative to the line
+	term     *notation.Term
+	kind     notation.SubstanceKind
+	mol      *molecule.Molecule
+	smiles   string // as read (the written SMILES, the dictionary's, or the referenced product's)
+	reagent  *reagents.Reagent
+	solvent  *reagents.Solvent
+	ref      string  // the label, when the substance is "@label"
+	from     *handOn // the referenced step's product
+	asSMILES bool    // read from SMILES written in the line
 }
 
 // known reports whether the substance resolved to something walden can
@@ -92,15 +92,15 @@ func (s *substance) known() bool {
 
 // stepInput is a step with every substance and condition resolved.
 type stepInput struct {
-	parsed    *notation.Step
-	substrate *substance
-	reagents  []*substance
-	solvents  []*substance
-	products  []*substance // written after '->'
-	tempC     float64
-	hasTemp   bool
-	reflux    bool
-	sealed    bool
-	tempSpan  source.Span
+	parsed         *notation.Step
+	substrate      *substance
+	reagents       []*substance
+	solvents       []*substance
+	products       []*substance // written after '->'
+	tempC          float64
+	hasTemp        bool
+	reflux         bool
+	sealed         bool
+	tempSpan       source.Span
 	solventAssumed string // the default used when no solvent is named
 }

@@ -31,7 +31,7 @@ func azideHalomethane(s *Step) []Caution {
 			}
 			out = append(out, Caution{
 				Code: "caution-azide-halomethane",
-				Message: say("Caution: azide with " + sv.display() + " can form di- or triazidomethane, which are explosive and have detonated on concentration.",
+				Message: say("Caution: azide with "+sv.display()+" can form di- or triazidomethane, which are explosive and have detonated on concentration.",
 					"Use a solvent without CH2X2/CHX3 groups (DMF, DMSO, water, acetonitrile) and never concentrate such a mixture."),
 				Parties: []Party{sv.party(), az.party()},
 			})

@@ -101,6 +101,14 @@ func (s Substance) party() Party { return Party{s.Role, s.Index} }
 // display returns how to name a substance in a message.
 func (s Substance) display() string {
 	if s.Text != "" {
+		for _, n := range s.Names {
+			if strings.EqualFold(n, s.Text) {
+				return s.Text
+			}
+		}
+		if len(s.Names) > 0 { // written as SMILES: name it too
+			return s.Text + " (" + s.Names[0] + ")"
+		}
 		return s.Text
 	}
 	if len(s.Names) > 0 {

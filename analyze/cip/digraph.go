@@ -71,9 +71,12 @@ type digraph struct {
 	rule6 int32 // atom preferred by rule 6, -1 when none
 	limit int
 	cache []sortEntry // by node*numSeqs + rule sequence: the node's ranked out edges in arena
-	arena []int32
-	gen   uint32
-	pool  [][]int32 // scratch slices
+	arena   []int32
+	rootGen uint32 // counts reroots, for the cache
+	auxGen  uint32 // counts changes of auxiliary descriptors and the rule 6 reference
+	pool    [][]int32 // scratch slices
+	auxMemo []auxMark // by node: whether its branch has auxiliary descriptors
+	ties    [][2]int32 // pairs of edges at the origin tied by the constitutional rules
 }
 
 // reset starts a new digraph rooted at atom.
@@ -84,7 +87,10 @@ func (g *digraph) reset(v *view, atom int, limit int) {
 	g.kids = g.kids[:0]
 	g.rule6 = -1
 	g.limit = limit
-	g.stale()
+	g.cache = g.cache[:0]
+	g.arena = g.arena[:0]
+	g.auxMemo = g.auxMemo[:0]
+	g.ties = g.ties[:0]
 	z := int32(v.m.Atoms[atom].Element)
 	g.nodes = append(g.nodes, node{atom: int32(atom), up: -1, made: -1, dist: 1, zNum: z, zDen: 1, first: -1, last: -1})
 	g.root = 0
@@ -247,7 +253,7 @@ func (g *digraph) reroot(n int32) {
 		cur = p
 	}
 	g.root = n
-	g.stale()
+	g.rootGen++
 }
 
 // inEdge returns the edge other than except that ends at n, or -1 at
@@ -287,7 +293,8 @@ func (g *digraph) nodesOf(atom int32, buf []int32) []int32 {
 
 // view is what labelling needs from a molecule, computed once.
 type view struct {
-	m       *molecule.Molecule
+	m        *molecule.Molecule
+	isotopes bool // some atom has a stated mass number
 	fracNum []int32 // averaged atomic number of mancude duplicates made on each atom
 	fracDen []int32
 }
@@ -295,5 +302,5 @@ type view struct {
 // setRule6 makes atom the reference of rule 6 (-1 for none).
 func (g *digraph) setRule6(atom int32) {
 	g.rule6 = atom
-	g.stale()
+	g.auxChanged()
 }

@@ -69,6 +69,13 @@ func (l *Labeller) Label(m *molecule.Molecule) ([]Descriptor, error) {
 func (l *Labeller) prepare(m *molecule.Molecule) {
 	n := len(m.Atoms)
 	l.v.m = m
+	l.v.isotopes = false
+	for i := range m.Atoms {
+		if m.Atoms[i].Isotope != 0 {
+			l.v.isotopes = true
+			break
+		}
+	}
 	if cap(l.v.fracNum) < n {
 		l.v.fracNum = make([]int32, n)
 		l.v.fracDen = make([]int32, n)
@@ -171,7 +178,7 @@ func (l *Labeller) setAux(i int) {
 	for _, p := range pending {
 		g.nodes[p.n].aux = p.d
 	}
-	g.stale()
+	g.auxChanged()
 }
 
 // walk follows u's chain of atoms from node n (a node of either end) to

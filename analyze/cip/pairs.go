@@ -18,9 +18,26 @@ func (g *digraph) fillPairs(n int32, ref Letter, seq *ruleSeq) pairList {
 		if c := refLetter(g.nodes[x].aux); c != None {
 			list = append(list, c)
 		}
-		for _, e := range g.sortedOut(x, seq) {
-			if end := g.edges[e].end; !g.terminal(end) {
-				queue = append(queue, end)
+		// Only branches holding descriptors can add to the list, and
+		// their order among themselves is all that matters.
+		var only int32 = -1
+		k := 0
+		b := g.out(x, g.buf())
+		for _, e := range b {
+			if g.hasAux(g.edges[e].end) {
+				only = g.edges[e].end
+				k++
+			}
+		}
+		g.put(b)
+		switch {
+		case k == 1:
+			queue = append(queue, only)
+		case k > 1:
+			for _, e := range g.sortedOut(x, seq) {
+				if end := g.edges[e].end; !g.terminal(end) && g.hasAux(end) {
+					queue = append(queue, end)
+				}
 			}
 		}
 	}

@@ -139,6 +139,16 @@ func (g *digraph) explore(r rule, a, b int32) int {
 	if c := g.compare(r, a, b); c != 0 {
 		return c
 	}
+	// Branches reaching this point have the same constitution (rule 1a
+	// explored them first), so a rule can only tell them apart by what
+	// it looks at: rule 2 by stated mass numbers, rules 3 to 5 by
+	// auxiliary descriptors, rule 6 by its reference.
+	switch {
+	case r.id == rule2 && !g.mol.isotopes,
+		r.id >= rule3 && r.id <= rule5 && !g.hasAux(g.edges[a].end) && !g.hasAux(g.edges[b].end),
+		r.id == rule6 && g.rule6 < 0:
+		return 0
+	}
 	seq := explorer(r)
 	qa := append(g.buf(), a)
 	qb := append(g.buf(), b)
@@ -187,7 +197,11 @@ func (g *digraph) explore(r rule, a, b int32) int {
 // ligands compares two edges leaving the same node by every rule of seq
 // in turn; deep explores each rule over the whole digraph.
 func (g *digraph) ligands(seq *ruleSeq, a, b int32, deep bool) int {
-	for _, r := range seq.rules {
+	rules := seq.rules
+	if deep && g.root == 0 && len(rules) > len(constitutional.rules) && g.constTied(a, b) {
+		rules = rules[len(constitutional.rules):]
+	}
+	for _, r := range rules {
 		var c int
 		if deep {
 			c = g.explore(r, a, b)
@@ -198,7 +212,21 @@ func (g *digraph) ligands(seq *ruleSeq, a, b int32, deep bool) int {
 			return c
 		}
 	}
+	if deep && g.root == 0 && seq == constitutional {
+		g.ties = append(g.ties, [2]int32{a, b})
+	}
 	return 0
+}
+
+// constTied reports whether edges a and b at the origin were found tied
+// by the constitutional rules already.
+func (g *digraph) constTied(a, b int32) bool {
+	for _, t := range g.ties {
+		if t == [2]int32{a, b} || t == [2]int32{b, a} {
+			return true
+		}
+	}
+	return false
 }
 
 // rank sorts es, edges leaving n, highest first by the rules of seq. It
@@ -206,11 +234,18 @@ func (g *digraph) ligands(seq *ruleSeq, a, b int32, deep bool) int {
 // comparison was decided by an enantiomorphic pair (rule 5), which makes
 // the unit pseudo-asymmetric.
 func (g *digraph) rank(n int32, es []int32, deep bool, seq *ruleSeq) (unique, pseudo bool) {
+	if deep && len(es) > 1 {
+		if u, ok := g.rankByFirst(es, seq.rules[0]); ok {
+			return u, false
+		}
+	}
 	unique = true
 	enantio := 0
+	var seen [][3]int32 // comparisons made, for the recount below
 	for i := 1; i < len(es); i++ {
 		for j := i; j > 0; j-- {
 			c := g.ligands(seq, es[j-1], es[j], deep)
+			seen = append(seen, [3]int32{es[j-1], es[j], int32(c)})
 			if c < -1 || c > 1 {
 				enantio++
 			}
@@ -231,12 +266,49 @@ func (g *digraph) rank(n int32, es []int32, deep bool, seq *ruleSeq) (unique, ps
 		// order of the atoms.
 		enantio = 0
 		for i := 1; i < len(es); i++ {
-			if c := g.ligands(seq, es[i-1], es[i], deep); c > 1 || c < -1 {
+			c, ok := 0, false
+			for _, s := range seen {
+				if s[0] == es[i-1] && s[1] == es[i] {
+					c, ok = int(s[2]), true
+				} else if s[0] == es[i] && s[1] == es[i-1] {
+					c, ok = -int(s[2]), true
+				}
+			}
+			if !ok {
+				c = g.ligands(seq, es[i-1], es[i], deep)
+			}
+			if c > 1 || c < -1 {
 				enantio++
 			}
 		}
 	}
 	return unique, enantio == 1
+}
+
+// rankByFirst sorts es by rule r alone, looking no further than the
+// nodes themselves. When that leaves no tie except between implicit
+// hydrogens (which no rule can ever tell apart), the order is the one a
+// full exploration would give, since every rule is tried on the nodes
+// themselves before it looks deeper; ok reports that case, and unique
+// whether there was no tie at all. Most nodes in a digraph are settled
+// here, which saves exploring their branches.
+func (g *digraph) rankByFirst(es []int32, r rule) (unique, ok bool) {
+	for i := 1; i < len(es); i++ {
+		for j := i; j > 0 && g.compare(r, es[j-1], es[j]) < 0; j-- {
+			es[j], es[j-1] = es[j-1], es[j]
+		}
+	}
+	unique = true
+	for i := 1; i < len(es); i++ {
+		if g.compare(r, es[i-1], es[i]) != 0 {
+			continue
+		}
+		if g.nodes[g.edges[es[i-1]].end].flags&implicitH == 0 || g.nodes[g.edges[es[i]].end].flags&implicitH == 0 {
+			return false, false
+		}
+		unique = false
+	}
+	return unique, true
 }
 
 // groups splits ranked edges into runs that seq cannot tell apart.
@@ -252,13 +324,16 @@ func (g *digraph) groups(seq *ruleSeq, es []int32) [][]int32 {
 }
 
 // sortedOut returns the edges leaving n ranked highest first by seq over
-// the whole digraph. The ordering is cached until the root, an auxiliary
-// descriptor or the rule 6 reference changes; the slice must not be
+// the whole digraph. Orderings are cached: those by the constitutional
+// rules depend only on which node is the root, the others also on the
+// auxiliary descriptors and the rule 6 reference. The slice must not be
 // modified.
 func (g *digraph) sortedOut(n int32, seq *ruleSeq) []int32 {
 	k := int(n)*numSeqs + int(seq.id)
+	rk := g.rootKey()
 	if k < len(g.cache) {
-		if c := g.cache[k]; c.gen == g.gen {
+		c := g.cache[k]
+		if c.root == rk && (seq.id <= uint8(rule2) || c.aux == g.auxGen) {
 			return g.arena[c.start:c.end:c.end]
 		}
 	}
@@ -268,30 +343,32 @@ func (g *digraph) sortedOut(n int32, seq *ruleSeq) []int32 {
 	g.arena = append(g.arena, es...)
 	g.put(es)
 	for len(g.cache) <= k {
-		g.cache = append(g.cache, sortEntry{})
+		g.cache = append(g.cache, sortEntry{root: ^uint32(0)})
 	}
 	end := int32(len(g.arena))
-	g.cache[k] = sortEntry{g.gen, start, end}
+	g.cache[k] = sortEntry{rk, g.auxGen, start, end}
 	return g.arena[start:end:end]
 }
 
-// sortEntry records a cached ordering: arena[start:end], valid while
-// the digraph's generation is gen.
+// sortEntry records a cached ordering, arena[start:end], made with the
+// root and auxiliary descriptors of the given generations.
 type sortEntry struct {
-	gen        uint32
+	root, aux  uint32
 	start, end int32
 }
 
-// stale forgets cached orderings after the root, an auxiliary descriptor
-// or the rule 6 reference changed.
-func (g *digraph) stale() {
-	g.gen++
-	if g.gen == 0 { // wrapped: old entries could look current
-		clear(g.cache)
-		g.gen = 1
+// rootKey identifies the current root for the cache: 0 for the origin,
+// to which labelling keeps coming back, else the count of reroots so far.
+func (g *digraph) rootKey() uint32 {
+	if g.root == 0 {
+		return 0
 	}
-	g.arena = g.arena[:0]
+	return g.rootGen
 }
+
+// auxChanged forgets cached orderings that depend on auxiliary
+// descriptors or the rule 6 reference.
+func (g *digraph) auxChanged() { g.auxGen++ }
 
 // buf takes a scratch slice from the digraph's pool.
 func (g *digraph) buf() []int32 {
@@ -306,4 +383,39 @@ func (g *digraph) buf() []int32 {
 // put returns a scratch slice to the pool.
 func (g *digraph) put(b []int32) {
 	g.pool = append(g.pool, b)
+}
+
+// hasAux reports whether n or any node of its branch (away from the
+// current root) carries an auxiliary descriptor. Answers are kept until
+// the root or the descriptors change.
+func (g *digraph) hasAux(n int32) bool {
+	stamp := uint64(g.rootKey())<<32 | uint64(g.auxGen)
+	for len(g.auxMemo) < len(g.nodes) {
+		g.auxMemo = append(g.auxMemo, auxMark{stamp: ^uint64(0)})
+	}
+	if m := g.auxMemo[n]; m.stamp == stamp {
+		return m.has
+	}
+	has := g.nodes[n].aux != None
+	if !has && !g.terminal(n) {
+		es := g.out(n, g.buf())
+		for _, e := range es {
+			if g.hasAux(g.edges[e].end) {
+				has = true
+				break
+			}
+		}
+		g.put(es)
+	}
+	for len(g.auxMemo) < len(g.nodes) { // the walk may have made nodes
+		g.auxMemo = append(g.auxMemo, auxMark{stamp: ^uint64(0)})
+	}
+	g.auxMemo[n] = auxMark{stamp, has}
+	return has
+}
+
+// auxMark memoises hasAux for one node.
+type auxMark struct {
+	stamp uint64
+	has   bool
 }

@@ -25,8 +25,14 @@ package molecule
 // MaxAromaticRing is the largest single ring tested for aromaticity.
 const MaxAromaticRing = 8
 
-// cycleBudget bounds the search for small cycles in dense graphs.
-const cycleBudget = 200_000
+// cycleBudget bounds the search for small cycles in dense graphs, and
+// maxCycles the cycles kept (fused pairs are tested among them, so their
+// number must stay small); beyond them perception is partial, which only
+// dense cage-like graphs reach.
+const (
+	cycleBudget = 200_000
+	maxCycles   = 512
+)
 
 func aromaticElement(e Element) bool {
 	switch e {
@@ -130,14 +136,12 @@ func (m *Molecule) Aromaticity() (atoms, bonds []bool) {
 	if len(cycles) == 0 {
 		return atoms, bonds
 	}
-	arom := make([]bool, len(cycles))
-	mark := func(c []int) {
-		for k, a := range c {
-			atoms[a] = true
-			b := m.BondBetween(a, c[(k+1)%len(c)])
-			bonds[b] = true
-		}
-	}
+	// Aromatic systems: single rings, then pairs fused on one bond whose
+	// perimeter holds 4n+2 electrons. A system is a pair of cycle indices
+	// (j < 0 for a single ring).
+	type system struct{ i, j int }
+	var systems []system
+	single := make([]bool, len(cycles))
 	for ci, c := range cycles {
 		sum, ones := 0, 0
 		for _, a := range c {
@@ -147,109 +151,103 @@ func (m *Molecule) Aromaticity() (atoms, bonds []bool) {
 			}
 		}
 		if sum%4 == 2 && ones > 0 {
-			arom[ci] = true
-			mark(c)
+			single[ci] = true
+			systems = append(systems, system{ci, -1})
 		}
 	}
-	// Pairs fused on exactly one bond: the perimeter holds the union of
-	// atoms, each counted once.
 	inA := make([]bool, n)
 	for i := range cycles {
 		for _, a := range cycles[i] {
 			inA[a] = true
 		}
 		for j := i + 1; j < len(cycles); j++ {
-			if arom[i] && arom[j] {
+			if single[i] && single[j] {
 				continue
 			}
-			shared, sum := 0, 0
+			shared, sum, ones := 0, 0, 0
 			for _, a := range cycles[i] {
 				sum += int(elec[a])
+				if elec[a] == 1 {
+					ones++
+				}
 			}
+			var s [2]int
 			for _, a := range cycles[j] {
 				if inA[a] {
+					if shared < 2 {
+						s[shared] = a
+					}
 					shared++
 				} else {
 					sum += int(elec[a])
 				}
 			}
-			if shared != 2 || sum%4 != 2 {
+			if shared != 2 || sum%4 != 2 || ones == 0 || m.BondBetween(s[0], s[1]) < 0 {
 				continue
 			}
-			// The two shared atoms must be bonded (fused, not bridged).
-			var s [2]int
-			k := 0
-			for _, a := range cycles[j] {
-				if inA[a] {
-					s[k] = a
-					k++
-				}
-			}
-			if m.BondBetween(s[0], s[1]) < 0 {
-				continue
-			}
-			mark(cycles[i])
-			mark(cycles[j])
+			systems = append(systems, system{i, j})
 		}
 		for _, a := range cycles[i] {
 			inA[a] = false
 		}
 	}
-	// An aromatic atom whose double bond leaves the aromatic bonds could
-	// not be read back from lower-case SMILES; such rings stay Kekulé.
+	if len(systems) == 0 {
+		return atoms, bonds
+	}
+	// An atom whose double bond leaves the aromatic bonds could not be
+	// read back from lower-case SMILES; a system holding one is dropped.
+	// Dropping only shrinks the union, so repeating until nothing changes
+	// reaches the same result whatever the atom order.
+	alive := make([]bool, len(systems))
+	for k := range alive {
+		alive[k] = true
+	}
+	markCycle := func(c []int) {
+		for k, a := range c {
+			atoms[a] = true
+			bonds[m.BondBetween(a, c[(k+1)%len(c)])] = true
+		}
+	}
 	for changed := true; changed; {
 		changed = false
-		for i := range n {
-			if !atoms[i] {
+		clear(atoms)
+		clear(bonds)
+		for k, sy := range systems {
+			if !alive[k] {
 				continue
 			}
-			for _, e := range m.adj[i] {
-				if m.Bonds[e.Bond].Order == 2 && !bonds[e.Bond] && elec[i] == 1 {
-					for ci, c := range cycles {
-						if !containsAtom(c, i) {
-							continue
-						}
-						arom[ci] = false
-						for k, a := range c {
-							atoms[a] = false
-							bonds[m.BondBetween(a, c[(k+1)%len(c)])] = false
+			markCycle(cycles[sy.i])
+			if sy.j >= 0 {
+				markCycle(cycles[sy.j])
+			}
+		}
+		for k, sy := range systems {
+			if !alive[k] {
+				continue
+			}
+			bad := false
+			for _, ci := range [2]int{sy.i, sy.j} {
+				if ci < 0 {
+					continue
+				}
+				for _, a := range cycles[ci] {
+					if elec[a] != 1 {
+						continue
+					}
+					for _, e := range m.adj[a] {
+						if m.Bonds[e.Bond].Order == 2 && !bonds[e.Bond] {
+							bad = true
 						}
 					}
-					changed = true
 				}
 			}
-		}
-		if changed {
-			// Re-mark what remains aromatic by single rings.
-			for ci, c := range cycles {
-				if arom[ci] {
-					mark(c)
-				}
+			if bad {
+				alive[k] = false
+				changed = true
 			}
 		}
-	}
-	for i := range n {
-		if !atoms[i] {
-			continue
-		}
-		any := false
-		for _, e := range m.adj[i] {
-			if bonds[e.Bond] {
-				any = true
-			}
-		}
-		atoms[i] = any
 	}
 	return atoms, bonds
-}
-
-func containsAtom(c []int, a int) bool {
-	for _, x := range c {
-		if x == a {
-			return true
-		}
-	}
-	return false
 }
 
 // smallCycles lists every simple cycle of at most MaxAromaticRing
@@ -271,7 +269,7 @@ func (m *Molecule) smallCycles(elec []int8, ring []bool) [][]int {
 				continue
 			}
 			if e.Atom == start && len(path) >= 3 {
-				if path[1] < path[len(path)-1] {
+				if path[1] < path[len(path)-1] && len(out) < maxCycles {
 					out = append(out, append([]int(nil), path...))
 				}
 				continue

@@ -72,9 +72,9 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 		o.Findings = append(o.Findings, Finding{Code: CodeOverAlkylation, Severity: Warning, Parties: Parties{Reactant: nuIdx, Solvent: -1},
 			Message: "the amine product is as nucleophilic as the starting amine and can be alkylated again: expect over-alkylation unless the amine is in large excess"})
 	}
-	if c.nu != nil && len(c.nu.Alternatives) > 0 {
+	if c.nu != nil && len(c.nu.Alternatives) > 0 && c.nuMol != nil && distinctSites(c) > 0 {
 		o.Findings = append(o.Findings, Finding{Code: CodeNucleophileSites, Severity: Warning, Parties: Parties{Reactant: nuIdx, Solvent: -1},
-			Message: fmt.Sprintf("the nucleophile has %d other site(s) of similar reactivity: a mixture may form", len(c.nu.Alternatives))})
+			Message: fmt.Sprintf("the nucleophile has %d other site(s) of similar reactivity: a mixture may form", distinctSites(c))})
 	}
 	if c.nu != nil && c.nu.Ambident != "" {
 		o.Findings = append(o.Findings, Finding{Code: CodeAmbident, Severity: Info, Parties: Parties{Reactant: nuIdx, Solvent: -1}, Message: c.nu.Ambident})
@@ -119,4 +119,17 @@ func roundFactor(f float64) string {
 	}
 	p := math.Pow(10, math.Floor(math.Log10(f)))
 	return fmt.Sprintf("%.0f", math.Round(f/p)*p)
+}
+
+// distinctSites counts the alternative nucleophilic sites that are not
+// symmetry-equivalent to the one that reacts (those give another product).
+func distinctSites(c *scoring) int {
+	sym := perceive.SymmetryClasses(c.nuMol)
+	n := 0
+	for _, a := range c.nu.Alternatives {
+		if a.Atom < len(sym) && sym[a.Atom] != sym[c.nu.Atom] {
+			n++
+		}
+	}
+	return n
 }

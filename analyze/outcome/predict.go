@@ -19,6 +19,9 @@ func Predict(st Step) (o Outcome) {
 		if r := recover(); r != nil {
 			o = Outcome{Mechanism: None, Site: -1, NotAnalysed: fmt.Sprintf("internal error while analysing this step (%v)", r)}
 		}
+		if o.NotAnalysed != "" {
+			o.Findings = append(o.Findings, Finding{Code: CodeNotAnalysed, Severity: Info, Message: "not analysed: " + o.NotAnalysed, Parties: Parties{Reactant: -1, Solvent: -1}})
+		}
 	}()
 	if st.Substrate == nil || len(st.Substrate.Atoms) == 0 {
 		o.NotAnalysed = "no substrate"
@@ -42,7 +45,7 @@ func Predict(st Step) (o Outcome) {
 
 	// An acid that is only a salt former (an amine hydrochloride) does
 	// not activate anything when the substrate has a real leaving group.
-	if (act.kind == actHX || act.kind == actDehydrate) && len(sub.Good()) > 0 {
+	if (act.kind == actHX || act.kind == actDehydrate) && !hasHydroxyl(sub) {
 		act = activation{}
 	}
 	if act.kind == actSulfonylate {
@@ -251,4 +254,15 @@ func distribute(o *Outcome, c *scoring) {
 			o.Mechanism = o.Scores[i].Pathway
 		}
 	}
+}
+
+// hasHydroxyl reports whether the substrate has an alcohol OH on an sp3
+// carbon.
+func hasHydroxyl(sub *perceive.Substrate) bool {
+	for _, s := range sub.Sites {
+		if s.Leaving.Kind == perceive.Hydroxyl && s.Flags.Has(perceive.Sp3) {
+			return true
+		}
+	}
+	return false
 }

@@ -5,8 +5,11 @@ import "math"
 // baseStrengthRule: E2 speeds up with the strength of the base (pKa of
 // its conjugate acid, Brønsted β ~0.4) and with the number of β-hydrogens
 // and the substitution of the alkene that forms (Zaitsev).
+// Soft, charge-delocalised bases (enolates, thiolates, cyanide) remove
+// protons far more slowly than their pKaH suggests.
 // Bunnett, J. F. Angew. Chem. Int. Ed. 1962, 1, 225; Dhar, M. L.; Hughes,
-// E. D.; Ingold, C. K. et al. J. Chem. Soc. 1948, 2093.
+// E. D.; Ingold, C. K. et al. J. Chem. Soc. 1948, 2093; Bernasconi, C. F.
+// Acc. Chem. Res. 1992, 25, 9 (intrinsic barriers of delocalised anions).
 var baseStrengthRule = Rule{
 	Name:   "base-strength",
 	Effect: "stronger bases and more substituted alkenes speed E2",
@@ -43,6 +46,9 @@ var baseStrengthRule = Rule{
 		}
 		if acid {
 			v += w("beta-acidifying")
+		}
+		if c.base.Data.Soft {
+			v += w("soft-base")
 		}
 		c.add(E2, v)
 		c.say("base %s (pKaH %.1f) with %d removable β-hydrogen(s), best alkene %d-substituted%s: E2 term %+.1f", c.base.Kind, c.base.PKaH, nH, int(best), map[bool]string{true: ", conjugated", false: ""}[conj], v)

@@ -129,7 +129,16 @@ type Reagents struct {
 // acidSites finds X–H groups of m a base could remove.
 func acidSites(m *molecule.Molecule, r *Rings) []Candidate {
 	var out []Candidate
+	// A molecule that is already an anion is not deprotonated again.
+	comp, _ := m.Components()
+	net := map[int]int{}
 	for i, a := range m.Atoms {
+		net[comp[i]] += a.Charge
+	}
+	for i, a := range m.Atoms {
+		if net[comp[i]] < 0 {
+			continue
+		}
 		if a.Charge != 0 || m.HydrogenCount(i) == 0 {
 			continue
 		}
@@ -172,6 +181,8 @@ func oxygenAcid(m *molecule.Molecule, o int) string {
 	n := m.Edges(o)[0].Atom
 	na := m.Atoms[n]
 	switch {
+	case na.Element == molecule.N && m.HydrogenCount(o) == 1:
+		return "oxime"
 	case na.Element == molecule.C && hasDoubleO(m, n):
 		return "carboxylic-acid"
 	case na.Element == molecule.C && na.Aromatic:
@@ -273,7 +284,7 @@ func nitrogenAcid(m *molecule.Molecule, r *Rings, n int) string {
 	case arylN:
 		return "aniline"
 	}
-	return ""
+	return "amine"
 }
 
 func fusedBenzo(m *molecule.Molecule, r *Rings, n int) bool {
@@ -530,11 +541,21 @@ func neutralKind(m *molecule.Molecule, r *Rings, i int) NucKind {
 			if m.Atoms[e.Atom].Aromatic || !allSingle(m, e.Atom) {
 				aryl = true
 			}
+			if el := m.Atoms[e.Atom].Element; (el == molecule.N || el == molecule.O) && h > 0 {
+				return "hydrazine"
+			}
 			if m.Atoms[e.Atom].Element != molecule.C && m.Atoms[e.Atom].Element != molecule.H {
 				return ""
 			}
 		}
 		if aryl {
+			for _, e := range m.Edges(i) {
+				for _, f := range m.Edges(e.Atom) {
+					if m.Bonds[f.Bond].Order == 2 && !m.Bonds[f.Bond].Aromatic && m.Atoms[f.Atom].Element == molecule.N {
+						return "amidine"
+					}
+				}
+			}
 			return "aniline"
 		}
 		switch m.Degree(i) {

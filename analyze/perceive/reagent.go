@@ -11,7 +11,11 @@ import (
 // site may lie and still be alkylated through its anion: carbonates in
 // DMF alkylate azoles and indoles (pKa 14-16) although the equilibrium lies on the acid
 // side, because the anion is consumed as it forms (common practice).
-const deprotonationWindow = 6.0
+const deprotonationWindow = 6.0 // N–H acids
+
+// oxygenWindow is the reach for O–H, S–H and C–H acids: carbonates
+// alkylate phenols and thiols but not alcohols (common practice).
+const oxygenWindow = 4.0
 
 // neutralBaseWindow is the same reach for neutral amine bases, which only
 // shift an equilibrium (Et3N with phenols, not with alcohols).
@@ -111,7 +115,14 @@ func PerceiveReagents(rs []Reactant) Reagents {
 			window = neutralBaseWindow
 		}
 		for k, a := range acids {
-			if a.AcidPKa > out.Base.PKaH+window {
+			reach := window
+			if rs[a.Reactant].Mol.Atoms[a.Atom].Element != molecule.N && reach > oxygenWindow {
+				reach = oxygenWindow
+			}
+			if a.Acid == "amine" {
+				reach = 0 // only organolithium bases make amide anions (LDA): common practice
+			}
+			if a.AcidPKa > out.Base.PKaH+reach {
 				continue
 			}
 			if a.Reactant == out.Base.Reactant && a.Atom == out.Base.Atom {
@@ -125,12 +136,23 @@ func PerceiveReagents(rs []Reactant) Reagents {
 			a := acids[k]
 			deprot[r] = true
 			cands = append(cands, a)
-			// Other sites of the same molecule as acidic as the best
-			// one (within one unit) are close competitors.
+			// Other sites of the same molecule as acidic as the best one
+			// (within one unit) are close competitors. A carboxylate is
+			// so weak a nucleophile that the next acid site within reach
+			// (a phenol, a thiol) reacts instead (common practice).
+			next := -1
 			for j, o := range acids {
-				if j != k && o.Reactant == r && o.AcidPKa <= a.AcidPKa+1 && o.AcidPKa <= out.Base.PKaH+window {
-					cands = append(cands, o)
+				if j == k || o.Reactant != r || o.Acid == "amine" || o.AcidPKa > out.Base.PKaH+window {
+					continue
 				}
+				if o.AcidPKa <= a.AcidPKa+1 {
+					cands = append(cands, o)
+				} else if a.Acid == "carboxylic-acid" && o.AcidPKa <= 11 && (next < 0 || o.AcidPKa < acids[next].AcidPKa) {
+					next = j
+				}
+			}
+			if next >= 0 {
+				cands = append(cands, acids[next])
 			}
 		}
 	}
@@ -164,6 +186,24 @@ func PerceiveReagents(rs []Reactant) Reagents {
 		}
 		cands = kept
 	}
+	// Tertiary amines, amidines and pyridines added beside another
+	// nucleophile serve as bases, not as nucleophiles (common practice).
+	otherNu := map[int]bool{}
+	for _, c := range cands {
+		if !auxiliaryBase(c.Kind) && c.Data.N >= 3 {
+			otherNu[c.Reactant] = true
+		}
+	}
+	if len(otherNu) > 0 {
+		kept := cands[:0]
+		for _, c := range cands {
+			if auxiliaryBase(c.Kind) && !otherNu[c.Reactant] && len(otherNu) > 0 {
+				continue
+			}
+			kept = append(kept, c)
+		}
+		cands = kept
+	}
 	// In a molecule carrying an anion, its neutral sites do not compete.
 	anionIn := map[int]bool{}
 	for _, c := range cands {
@@ -179,15 +219,18 @@ func PerceiveReagents(rs []Reactant) Reagents {
 		filtered = append(filtered, c)
 	}
 	cands = filtered
+	// The most nucleophilic site reacts: anions formed by the base and
+	// neutral amines compete on Pearson n (excess carbonate deprotonates
+	// every site within reach: common practice).
 	sort.SliceStable(cands, func(i, j int) bool {
 		a, b := cands[i], cands[j]
+		if a.Data.N != b.Data.N {
+			return a.Data.N > b.Data.N
+		}
 		if (a.Charge < 0) != (b.Charge < 0) {
 			return a.Charge < 0
 		}
-		if a.Acid != "" && b.Acid != "" && a.Reactant == b.Reactant && a.AcidPKa != b.AcidPKa {
-			return a.AcidPKa < b.AcidPKa
-		}
-		return a.Data.N > b.Data.N
+		return a.AcidPKa < b.AcidPKa
 	})
 	out.Candidates = cands
 	if len(cands) == 0 {
@@ -257,6 +300,15 @@ func withEntry(d NucData, e *reagents.Reagent, m *molecule.Molecule, atom int) N
 		d.Bulk = e.Bulk
 	}
 	return d
+}
+
+// auxiliaryBase: kinds used as added bases (Et3N, DIPEA, DBU, pyridine).
+func auxiliaryBase(k NucKind) bool {
+	switch k {
+	case "amine-tertiary", "amine-hindered", "pyridine", "amidine":
+		return true
+	}
+	return false
 }
 
 var halideKinds = map[NucKind]bool{"iodide": true, "bromide": true, "chloride": true}

@@ -318,6 +318,11 @@ func betas(m *molecule.Molecule, r *Rings, c int, lg LeavingGroup) []Beta {
 		}
 		if beta.InRing && h > 0 {
 			ringAnti(m, c, b, lg, &beta)
+			// A double bond inside a three- or four-membered ring is too
+			// strained to form by E2 (cyclobutene, azetine: common practice).
+			if r.SmallestRingBond(c, b) <= 4 {
+				beta.AntiH = 0
+			}
 		}
 		out = append(out, beta)
 	}

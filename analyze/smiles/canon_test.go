@@ -1,7 +1,9 @@
 package smiles
 
 import (
+	"fmt"
 	"math/rand"
+	"strings"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
@@ -151,4 +153,16 @@ func TestCanonicalDistinguishes(t *testing.T) {
 			assert.NotEqual(t, a, b, "%s vs %s", p.a, p.b)
 		}
 	}
+}
+
+// TestCanonicalGolden records the canonical SMILES of the hand set and
+// the suite in testdata/canonical.golden, so that any change of the
+// canonical form shows in review. This is a regression record, not a
+// check against the world: TestRDKitOracle is that check.
+func TestCanonicalGolden(t *testing.T) {
+	var b strings.Builder
+	for _, s := range append(append([]string(nil), handSet...), suiteSMILESOrNone()...) {
+		fmt.Fprintf(&b, "%s\t%s\n", s, canonicalOf(t, s))
+	}
+	checkGolden(t, "canonical.golden", b.String())
 }

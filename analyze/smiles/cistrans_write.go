@@ -2,11 +2,18 @@ package smiles
 
 import "walden/analyze/molecule"
 
-// cisTransMarks chooses '/' and '\' for the single bonds around every
-// recorded double-bond configuration, in the order the double bonds are
-// written, so that one mark shared by two conjugated double bonds serves
-// both (OpenSMILES section 3.9.5). One single bond at each end is
-// marked.
+// cisTransMarks chooses '/' and '\' for single bonds around every
+// recorded double-bond configuration (OpenSMILES section 3.9.5).
+//
+// One single bond at each end is marked, unless a bond marked for a
+// conjugated neighbour is there already. Each marked bond's direction is
+// then a sign times one unknown per configuration (the side of its first
+// reference); a bond shared by two configurations ties their unknowns,
+// as does an end with two marked bonds (its neighbours must sit on
+// opposite sides). The unknowns are solved with a union-find carrying
+// parity, and each connected group is flipped so that its first mark in
+// the output is '/', which keeps the string independent of where the
+// marks were started.
 func (w *writer) cisTransMarks() {
 	m := w.m
 	if len(m.CisTrans) == 0 {
@@ -14,8 +21,13 @@ func (w *writer) cisTransMarks() {
 	}
 	var idx [16]int
 	order := idx[:0]
-	for i := range m.CisTrans {
-		order = append(order, i)
+	for i, ct := range m.CisTrans {
+		if w.validCisTrans(ct) {
+			order = append(order, i)
+		}
+	}
+	if len(order) == 0 {
+		return
 	}
 	first := func(i int) int32 {
 		ct := m.CisTrans[i]
@@ -26,38 +38,53 @@ func (w *writer) cisTransMarks() {
 			order[j], order[j-1] = order[j-1], order[j]
 		}
 	}
-	w.group = resizeInt32(w.group, len(m.Bonds), -1)
-	groups := int32(0)
+	// Choose the marked bonds: bdir 1 stands for "marked" until solved.
 	for _, ci := range order {
 		ct := m.CisTrans[ci]
-		if !w.validCisTrans(ct) {
-			continue
+		for s := range 2 {
+			w.chooseMark(ct.Ends[s], ct.Refs[s])
 		}
-		// Side of each end's reference, from marks already placed.
-		s0, g0 := w.knownSide(ct.Ends[0], ct.Refs[0])
-		s1, g1 := w.knownSide(ct.Ends[1], ct.Refs[1])
-		switch {
-		case s0 != 0 && s1 != 0 && g0 != g1:
-			// Two groups of marks meet: flip the second to agree, then
-			// merge.
-			if s1 != s0*int(ct.Config) {
-				w.flipGroup(g1)
-			}
-			w.mergeGroup(g1, g0)
-		case s0 == 0 && s1 != 0:
-			s0, g0 = s1*int(ct.Config), g1
-		case s0 == 0:
-			s0, g0 = 1, groups
-			groups++
-		}
-		s1 = s0 * int(ct.Config)
-		w.placeMarks(ct.Ends[0], ct.Refs[0], s0, g0)
-		w.placeMarks(ct.Ends[1], ct.Refs[1], s1, g0)
 	}
-	// A group of marks read the same when all are flipped; choose the
-	// flip whose first mark in the output is '/', so the choice does not
-	// depend on where the marks were started.
-	settled := make([]bool, groups)
+	// Per marked bond: the configuration it first belongs to and its
+	// coefficient; later memberships tie configurations together.
+	nct := len(m.CisTrans)
+	w.group = resizeInt32(w.group, len(m.Bonds), -1)
+	w.coef = resizeInt8(w.coef, len(m.Bonds))
+	w.uf = resizeInt32(w.uf, nct, -1)
+	w.par = resizeInt8(w.par, nct)
+	for i := range w.uf {
+		w.uf[i] = int32(i)
+	}
+	for _, ci := range order {
+		ct := m.CisTrans[ci]
+		for s := range 2 {
+			end := ct.Ends[s]
+			for _, e := range m.Edges(end) {
+				b := e.Bond
+				if m.Bonds[b].Order != 1 || w.bdir[b] == 0 {
+					continue
+				}
+				c := int8(1)
+				if m.Bonds[b].A != end {
+					c = -c
+				}
+				if e.Atom != ct.Refs[s] {
+					c = -c
+				}
+				if s == 1 && ct.Config == molecule.Opposite {
+					c = -c
+				}
+				if w.group[b] < 0 {
+					w.group[b], w.coef[b] = int32(ci), c
+					continue
+				}
+				// c·X[ci] = coef·X[group] ties the two unknowns.
+				w.union(int32(ci), w.group[b], c*w.coef[b])
+			}
+		}
+	}
+	// Solve: each root's value chosen at its first mark in the output.
+	w.val = resizeInt8(w.val, nct)
 	for _, t := range w.tokens {
 		var b, from int
 		switch {
@@ -68,31 +95,67 @@ func (w *writer) cisTransMarks() {
 		default:
 			continue
 		}
-		g := w.group[b]
-		if w.bdir[b] == 0 || g < 0 || settled[g] {
+		if w.group[b] < 0 {
 			continue
 		}
-		settled[g] = true
-		if w.sideOf(b, from) < 0 {
-			w.flipGroup(g)
+		root, p := w.find(w.group[b])
+		if w.val[root] != 0 {
+			continue
 		}
+		// Want the written mark '/': direction +1 read from "from".
+		d := int8(1)
+		if m.Bonds[b].A != from {
+			d = -1
+		}
+		// bdir = coef·X[group] = coef·p·X[root]
+		w.val[root] = d * w.coef[b] * p
+	}
+	for b := range w.bdir {
+		if w.group[b] < 0 {
+			w.bdir[b] = 0
+			continue
+		}
+		root, p := w.find(w.group[b])
+		v := w.val[root]
+		if v == 0 {
+			v = 1
+		}
+		w.bdir[b] = w.coef[b] * p * v
 	}
 }
 
-func (w *writer) flipGroup(g int32) {
-	for b, x := range w.group {
-		if x == g {
-			w.bdir[b] = -w.bdir[b]
-		}
+// find returns the root of configuration x and the parity p with
+// X[x] = p·X[root].
+func (w *writer) find(x int32) (int32, int8) {
+	p := int8(1)
+	for w.uf[x] != x {
+		p *= w.par[x]
+		x = w.uf[x]
 	}
+	return x, p
 }
 
-func (w *writer) mergeGroup(from, into int32) {
-	for b, x := range w.group {
-		if x == from {
-			w.group[b] = into
-		}
+// union records X[a] = q·X[b]; a contradiction (possible only for marks
+// that no geometry satisfies) keeps the first relation.
+func (w *writer) union(a, b int32, q int8) {
+	ra, pa := w.find(a)
+	rb, pb := w.find(b)
+	if ra == rb {
+		return
 	}
+	// X[a] = pa·X[ra], X[b] = pb·X[rb], X[a] = q·X[b]
+	// → X[ra] = pa·q·pb·X[rb]
+	w.uf[ra] = rb
+	w.par[ra] = pa * q * pb
+}
+
+func resizeInt8(s []int8, n int) []int8 {
+	if cap(s) < n {
+		s = make([]int8, n)
+	}
+	s = s[:n]
+	clear(s)
+	return s
 }
 
 func (w *writer) validCisTrans(ct molecule.CisTrans) bool {
@@ -110,37 +173,11 @@ func (w *writer) validCisTrans(ct molecule.CisTrans) bool {
 	return ct.Config == molecule.Together || ct.Config == molecule.Opposite
 }
 
-// sideOf is the side on which bond b's mark puts the neighbour of end.
-func (w *writer) sideOf(b, end int) int {
-	d := int(w.bdir[b])
-	if w.m.Bonds[b].A != end {
-		d = -d
-	}
-	return d
-}
-
-// knownSide returns the side of ref at end implied by marks already set
-// on single bonds at end, and their group; 0 when none.
-func (w *writer) knownSide(end, ref int) (int, int32) {
-	for _, e := range w.m.Edges(end) {
-		if w.m.Bonds[e.Bond].Order != 1 || w.bdir[e.Bond] == 0 {
-			continue
-		}
-		s := w.sideOf(e.Bond, end)
-		if e.Atom == ref {
-			return s, w.group[e.Bond]
-		}
-		return -s, w.group[e.Bond]
-	}
-	return 0, -1
-}
-
-// placeMarks puts ref on side s of end by marking one single bond at
-// end, unless one is marked already (by a conjugated neighbour, checked
-// consistent by the caller). It prefers a neighbour that is not itself
-// the end of an unconfigured double bond, where a mark on each side would
-// be read as a configuration that was never given.
-func (w *writer) placeMarks(end, ref, s int, g int32) {
+// chooseMark marks one single bond at end for the configuration with
+// reference ref, unless one is marked already. It prefers a neighbour
+// that is not itself the end of an unconfigured double bond, where a mark
+// on each side would be read as a configuration that was never given.
+func (w *writer) chooseMark(end, ref int) {
 	m := w.m
 	best, bestScore := -1, -1
 	for _, e := range m.Edges(end) {
@@ -161,18 +198,9 @@ func (w *writer) placeMarks(end, ref, s int, g int32) {
 			best, bestScore = e.Bond, score
 		}
 	}
-	if best < 0 {
-		return
+	if best >= 0 {
+		w.bdir[best] = 1
 	}
-	want := s
-	if m.Bonds[best].Other(end) != ref {
-		want = -s
-	}
-	if m.Bonds[best].A != end {
-		want = -want
-	}
-	w.bdir[best] = int8(want)
-	w.group[best] = g
 }
 
 // freeDouble reports whether atom a has a written double bond that

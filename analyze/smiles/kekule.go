@@ -1,10 +1,6 @@
 package smiles
 
-import (
-	"fmt"
-
-	"walden/analyze/molecule"
-)
+import "walden/analyze/molecule"
 
 // aromaticValence is the valence an aromatic atom reaches in its Kekulé
 // form, from its element and charge. Charged atoms take the valence of
@@ -144,10 +140,6 @@ func (p *parser) kekulise() {
 			}
 		}
 		p.errorf(a.Span.Start, a.Span.End, "no Kekulé form: %d aromatic atom(s) here found no partner for a double bond; %s", len(lonely), hint)
-		if len(lonely) > 1 {
-			b := m.Atoms[lonely[len(lonely)-1]]
-			_ = b
-		}
 	}
 }
 
@@ -338,5 +330,3 @@ func (p *parser) implicitHydrogens() {
 		}
 	}
 }
-
-var _ = fmt.Sprint

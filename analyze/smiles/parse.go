@@ -38,10 +38,18 @@ func Parse(s string) (*molecule.Molecule, error) {
 	p.m.Grow(letters, letters+4)
 	p.notes = make([]bondNote, 0, letters+4)
 	p.read()
-	if len(p.errs) == 0 || !p.stopped {
+	if !p.stopped {
+		// After a syntax error the molecule is partial (an unclosed ring,
+		// a lost atom), so what kekulisation and stereo would say about it
+		// is noise: the molecule is still completed, their messages are
+		// dropped.
+		syntax := len(p.errs)
 		p.kekulise()
 		p.implicitHydrogens()
 		p.stereo()
+		if syntax > 0 {
+			p.errs = p.errs[:syntax]
+		}
 	}
 	p.errs.Sort()
 	return p.m, p.errs.Err()
@@ -135,8 +143,6 @@ func (p *parser) read() {
 			}
 			if prev >= 0 {
 				p.chainBond(prev, a, bsym, bspan)
-			} else if bsym != 0 {
-				// Reported when the symbol was read.
 			}
 			prev, bsym = a, 0
 		case isBondSymbol(c):
@@ -390,7 +396,6 @@ func (p *parser) bracketAtom() int {
 		a.Isotope = 0
 	}
 	// element
-	symStart := p.pos
 	if p.pos >= len(s) {
 		fail("SMILES ends inside a bracket atom; expected an element symbol and ']'")
 	} else {
@@ -432,7 +437,6 @@ func (p *parser) bracketAtom() int {
 			fail("found %q; expected an element symbol after '['", string(c))
 		}
 	}
-	_ = symStart
 	// chirality
 	var mark *chiralMark
 	if !bad && p.pos < len(s) && s[p.pos] == '@' {
@@ -553,9 +557,6 @@ func (p *parser) bracketAtom() int {
 		}
 		if p.pos < len(s) && s[p.pos] == ']' {
 			p.pos++
-		}
-		if p.pos >= len(s) && s[len(s)-1] != ']' && !p.stopped {
-			// The missing bracket was already reported or is implied.
 		}
 		return -1
 	}

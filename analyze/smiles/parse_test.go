@@ -201,7 +201,7 @@ func TestParseErrors(t *testing.T) {
 		{"c1ccnc1", []molecule.Span{sp(5, 6)}},
 		{"C/C=C", []molecule.Span{sp(1, 2)}},
 		{"F/C(\\Cl)=C/F", []molecule.Span{sp(4, 5)}},
-		{"C/1=C/CCCCCC/1", []molecule.Span{sp(1, 14), sp(5, 6)}},
+		{"C/1=C/CCCCCC/1", []molecule.Span{sp(1, 14)}},
 		{"C C", []molecule.Span{sp(1, 2)}},
 		{"C[Fe+16]", []molecule.Span{sp(4, 7)}},
 		{"C[C@](F)Cl", []molecule.Span{sp(3, 4)}},
@@ -411,7 +411,10 @@ func TestAllene(t *testing.T) {
 
 func TestLonePairCentre(t *testing.T) {
 	// Sulfoxide, OpenSMILES section 3.9.3: the lone pair sits where an
-	// implicit hydrogen would.
+	// implicit hydrogen would. For a centre written first RDKit 2022.09
+	// differs (it reads [S@](C)(=O)CC like C[S@](=O)CC); walden follows
+	// the specification and never writes such a centre first, so its
+	// output reads alike in both (TestRDKitOracle).
 	m, err := Parse("C[S@](=O)CC")
 	require.NoError(t, err)
 	require.Len(t, m.Tetrahedral, 1)

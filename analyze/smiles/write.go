@@ -59,12 +59,19 @@ type writer struct {
 	keyA    []int32 // sequence number of each bond at its A end
 	keyB    []int32
 	bdir    []int8  // '/' '\' per bond, read from A to B
-	group   []int32 // per marked bond: the coupled marks it belongs to
-	digitOf []int8  // ring-closure number per bond while writing
+	group   []int32 // per marked bond: the configuration it first serves
+	coef    []int8  // per marked bond: its direction over that unknown
+	uf      []int32 // union-find over configurations
+	par     []int8
+	val     []int8
+	digitOf []int8 // ring-closure number per bond while writing
 	rootBuf []int32
-	order   []int32
-	edgeBuf []molecule.Edge
-	buf     strings.Builder
+	// stereoOf indexes m.Tetrahedral then m.Axial by centre atom, -1
+	// for none.
+	stereoOf []int32
+	order    []int32
+	edgeBuf  []molecule.Edge
+	buf      strings.Builder
 }
 
 type tokenKind uint8
@@ -93,6 +100,19 @@ func newWriter(m *molecule.Molecule, aromatic bool) *writer {
 // init prepares w for m, keeping its buffers.
 func (w *writer) init(m *molecule.Molecule, aromatic bool) {
 	w.m, w.aromatic = m, aromatic
+	// Index the stereo entries by atom, so writing an atom does not scan
+	// every centre.
+	w.stereoOf = resizeInt32(w.stereoOf, len(m.Atoms), -1)
+	for k, t := range m.Tetrahedral {
+		if t.Centre >= 0 && t.Centre < len(m.Atoms) && w.stereoOf[t.Centre] < 0 {
+			w.stereoOf[t.Centre] = int32(k)
+		}
+	}
+	for k, ax := range m.Axial {
+		if ax.Centre >= 0 && ax.Centre < len(m.Atoms) && w.stereoOf[ax.Centre] < 0 {
+			w.stereoOf[ax.Centre] = int32(len(m.Tetrahedral) + k)
+		}
+	}
 	if aromatic {
 		w.arom, w.aromB = m.Aromaticity()
 		if !w.aromaticReadable() {
@@ -678,10 +698,12 @@ func (w *writer) atomText(i int) {
 // neighbour order, 0 when none.
 func (w *writer) chirality(i int) molecule.Winding {
 	m := w.m
-	for _, t := range m.Tetrahedral {
-		if t.Centre != i {
-			continue
-		}
+	k := int(w.stereoOf[i])
+	if k < 0 {
+		return 0
+	}
+	if k < len(m.Tetrahedral) {
+		t := m.Tetrahedral[k]
 		var keys [4]int32
 		for k, r := range t.Refs {
 			if r == molecule.Implicit {
@@ -699,10 +721,8 @@ func (w *writer) chirality(i int) molecule.Winding {
 		}
 		return windingFor(t.Winding, keys)
 	}
-	for _, ax := range m.Axial {
-		if ax.Centre != i {
-			continue
-		}
+	{
+		ax := m.Axial[k-len(m.Tetrahedral)]
 		var keys [4]int32
 		for k, r := range ax.Refs {
 			end := ax.Ends[k/2]
@@ -724,7 +744,6 @@ func (w *writer) chirality(i int) molecule.Winding {
 		}
 		return windingFor(ax.Winding, keys)
 	}
-	return 0
 }
 
 // windingFor converts a winding stated for references in stored order to

@@ -75,18 +75,25 @@ type Mark struct {
 	State MarkState
 }
 
+// Pos returns the start of the mark.
 func (m *Mark) Pos() source.Pos { return m.Span.Start }
+
+// End returns the end of the mark.
 func (m *Mark) End() source.Pos { return m.Span.End }
 
 // Label names a step's product so that a later step can use it as
-// "@name". Span covers the name and its colon.
+// "@name". Span covers the name and its colon, or, for a step number
+// ("1." or "1)"), the number and its mark; Name is then the number.
 type Label struct {
 	Span     source.Span
 	Name     string
-	NameSpan source.Span // the name without the colon
+	NameSpan source.Span // the name without the colon or mark
 }
 
+// Pos returns the start of the label.
 func (l *Label) Pos() source.Pos { return l.Span.Start }
+
+// End returns the end of the label.
 func (l *Label) End() source.Pos { return l.Span.End }
 
 // SepKind says which separator came before a term.
@@ -111,13 +118,19 @@ type Sep struct {
 	Kind SepKind
 }
 
+// Pos returns the start of the separator.
 func (s *Sep) Pos() source.Pos { return s.Span.Start }
+
+// End returns the end of the separator.
 func (s *Sep) End() source.Pos { return s.Span.End }
 
 // Arrow separates what goes in from the expected products.
 type Arrow struct{ Span source.Span }
 
+// Pos returns the start of the arrow.
 func (a *Arrow) Pos() source.Pos { return a.Span.Start }
+
+// End returns the end of the arrow.
 func (a *Arrow) End() source.Pos { return a.Span.End }
 
 // Comment is the text after "//". Text excludes the marker and the
@@ -127,7 +140,10 @@ type Comment struct {
 	Text string
 }
 
+// Pos returns the start of the comment.
 func (c *Comment) Pos() source.Pos { return c.Span.Start }
+
+// End returns the end of the comment.
 func (c *Comment) End() source.Pos { return c.Span.End }
 
 // Term is one item of a line between separators: a substance with its
@@ -145,7 +161,10 @@ type Term struct {
 	sep Sep // storage for Sep
 }
 
+// Pos returns the start of the term.
 func (t *Term) Pos() source.Pos { return t.Span.Start }
+
+// End returns the end of the term.
 func (t *Term) End() source.Pos { return t.Span.End }
 
 // SubstanceKind says how a substance is written.
@@ -191,7 +210,10 @@ type Substance struct {
 	Ratio *Quantity    // a Mixture's ratio ("4:1"); nil when not given
 }
 
+// Pos returns the start of the substance.
 func (s *Substance) Pos() source.Pos { return s.Span.Start }
+
+// End returns the end of the substance.
 func (s *Substance) End() source.Pos { return s.Span.End }
 
 // QuantityKind says what a quantity measures.
@@ -237,7 +259,10 @@ type Quantity struct {
 	Ratio    []float64   // the parts of a Ratio, e.g. [4 1]
 }
 
+// Pos returns the start of the quantity.
 func (q *Quantity) Pos() source.Pos { return q.Span.Start }
+
+// End returns the end of the quantity.
 func (q *Quantity) End() source.Pos { return q.Span.End }
 
 // Note is parenthesised text that is not a quantity. Text excludes the
@@ -247,5 +272,8 @@ type Note struct {
 	Text string
 }
 
+// Pos returns the start of the note.
 func (n *Note) Pos() source.Pos { return n.Span.Start }
+
+// End returns the end of the note.
 func (n *Note) End() source.Pos { return n.Span.End }

@@ -8,7 +8,7 @@
 //
 //	step       = [ mark ␣ ] [ label ␣ ] reactants { "," term } [ arrow [ products ] { "," term } ] [ comment ] .
 //	mark       = "[x]" | "[X]" | "[-]" | "[ ]" .            (done, done, skipped, open)
-//	label      = name ":" .                                 (first word; a SMILES never ends in ':')
+//	label      = name ":" | digits ( "." | ")" ) .           (first word; a SMILES never ends in ':' nor starts with a digit)
 //	name       = ( letter | digit | "_" | "-" | "'" ) { letter | digit | "_" | "-" | "'" } .
 //	reactants  = term { ␣ "+" ␣ term } .                    (the first term holds the substrate)
 //	products   = term { ␣ "+" ␣ term } .

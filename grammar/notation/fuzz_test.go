@@ -46,5 +46,23 @@ func FuzzParse(f *testing.F) {
 			return true
 		})
 		_ = st.String()
+
+		// The batch parser agrees with Parse on every line of the input
+		// read as a host text.
+		var spans []source.Span
+		start := 0
+		for i := 0; i <= len(line); i++ {
+			if i == len(line) || line[i] == '\n' {
+				spans = append(spans, source.Span{Start: source.Pos(start), End: source.Pos(i)})
+				start = i + 1
+			}
+		}
+		steps, errLists := ParseLines(line, spans)
+		for i, sp := range spans {
+			want, wantErrs := Parse(line[sp.Start:sp.End], sp.Start)
+			if steps[i].String() != want.String() || len(errLists[i]) != len(wantErrs) {
+				t.Fatalf("ParseLines differs from Parse on %q:\n%s\n%s", line[sp.Start:sp.End], steps[i], want)
+			}
+		}
 	})
 }

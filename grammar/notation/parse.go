@@ -154,14 +154,25 @@ func Parse(line []byte, base source.Pos) (*Step, source.ErrorList) {
 // the same trees as calling Parse on each line, but shares one copy of
 // the text and large node slabs among the lines, so that reading a whole
 // page costs a few allocations per hundred lines instead of several per
-// line.
+// line. A span outside text gives an empty Step and a "bad-span" error.
 func ParseLines(text []byte, spans []source.Span) ([]*Step, []source.ErrorList) {
 	p := &parser{batch: true}
 	host := string(text)
 	steps := make([]*Step, len(spans))
 	errs := make([]source.ErrorList, len(spans))
 	for i, sp := range spans {
-		p.src, p.str, p.base, p.errs = text[sp.Start:sp.End], host[sp.Start:sp.End], sp.Start, nil
+		if sp.Start < 0 || sp.Start > sp.End || int(sp.End) > len(text) {
+			// A caller's mistake, reported rather than panicking.
+			st := &Step{Span: sp}
+			errs[i].Add(sp, "bad-span", fmt.Sprintf("line span %d-%d lies outside the %d-byte text", sp.Start, sp.End, len(text)))
+			steps[i] = st
+			continue
+		}
+		p.src, p.base, p.errs = text[sp.Start:sp.End], sp.Start, nil
+		p.str = ""
+		if sp.Len() <= MaxLineLength {
+			p.str = host[sp.Start:sp.End]
+		}
 		steps[i], errs[i] = p.parse()
 	}
 	return steps, errs
@@ -323,7 +334,19 @@ func (p *parser) wordAt(i, end int) string {
 // ':' (it is a bond and needs an atom after it), so a first word ending
 // in a colon is a label.
 func (p *parser) label(st *Step, toks []tok) []tok {
-	if len(toks) == 0 || toks[0].kind != tWord || p.src[toks[0].end-1] != ':' {
+	if len(toks) == 0 || toks[0].kind != tWord {
+		return toks
+	}
+	if p.numbered(toks) {
+		t := toks[0]
+		st.Label = p.label0
+		*st.Label = Label{Span: p.span(t.start, t.end), Name: p.str[t.start : t.end-1], NameSpan: p.span(t.start, t.end-1)}
+		if len(toks) == 1 {
+			p.errorf(t.start, t.end, "missing-substrate", "step number %s with no step after it; write the substrate after it", quote(p.text(t)))
+		}
+		return toks[1:]
+	}
+	if p.src[toks[0].end-1] != ':' {
 		return toks
 	}
 	t := toks[0]
@@ -347,6 +370,28 @@ func (p *parser) label(st *Step, toks []tok) []tok {
 		p.errorf(t.start, t.end, "missing-substrate", "label %s names no step; write the substrate after it", quote(name+":"))
 	}
 	return toks[1:]
+}
+
+// numbered reports whether the line starts with a step number as in a
+// numbered list ("1.", "12)"), which labels the step like "1:". No SMILES
+// starts with a digit; "2. equiv" (a unit next) is not taken for one.
+func (p *parser) numbered(toks []tok) bool {
+	t := toks[0]
+	w := p.str[t.start:t.end]
+	if len(w) < 2 || w[len(w)-1] != '.' && w[len(w)-1] != ')' {
+		return false
+	}
+	for i := 0; i < len(w)-1; i++ {
+		if !isDigitByte(w[i]) {
+			return false
+		}
+	}
+	if len(toks) > 1 && toks[1].kind == tWord {
+		if _, ok := lookupUnit(p.text(toks[1])); ok {
+			return false
+		}
+	}
+	return true
 }
 
 // badRune returns the first character of s.

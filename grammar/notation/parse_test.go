@@ -124,6 +124,10 @@ func TestValid(t *testing.T) {
 		{"CCBr + NaN3, DMF,60 °C", "R:CCBr | R:NaN3 | C:DMF | C:[60 °C]"},
 		{"CCBr + NaN3, 5 bar, 20 wt%", "R:CCBr | R:NaN3 | C:[5 bar] | C:[20 wt%]"},
 		{"CCBr + NaN3, DMF, 60 °C, 3 mol %", "R:CCBr | R:NaN3 | C:DMF | C:[60 °C] | C:[3 mol%]"},
+		{"1. C[C@H](O)CCc1ccccc1 + TsCl, pyridine", "label:1 | R:C[C@H](O)CCc1ccccc1 | R:TsCl | C:pyridine"},
+		{"2) @1 + NaN3, DMF", "label:2 | R:@1 | R:NaN3 | C:DMF"},
+		{"2. equiv NaN3 + CCBr", "R:NaN3[2 eq] | R:CCBr"},
+		{"CCBr + NaN3, THF/water (4:1), KOtBu (1.0 M in THF)", "R:CCBr | R:NaN3 | C:mix(THF,water;4:1) | C:KOtBu(1.0 M in THF)"},
 		// The forms docs/notation.md promises.
 		{"CCBr + NaN3, MeOH / CH2Cl2 1:9 v/v, 60 ℃, 0 to 25 °C, o/n", "R:CCBr | R:NaN3 | C:mix(MeOH,CH2Cl2;1:9) | C:[60 °C] | C:[0 °C to 25 °C] | C:[overnight]"},
 		{"CCBr + 2× NaN3, at 60 °C, 298 K, 1 atm, 250 mg, 5 mL, 2 M, 60 oC, 3 hours", "R:CCBr | R:NaN3[2 eq] | C:[60 °C] | C:[298 K] | C:[1 atm] | C:[250 mg] | C:[5 mL] | C:[2 M] | C:[60 °C] | C:[3 h]"},
@@ -192,10 +196,13 @@ func TestErrors(t *testing.T) {
 		{"CCBr.[Na+].[N-]=[N+]=[N-]«reaction-smiles ~reaction SMILES»>>CCN=[N+]=[N-]", "R:CCBr.[Na+].[N-]=[N+]=[N-]>>CCN=[N+]=[N-]"},
 		{"CCBr + NaN3 DMF, THF 60 °C «two-substances ~second substance 'water' in one term after 'THF'»water", "R:CCBr | R:phrase=NaN3 DMF | C:THF[60 °C]"},
 		{"CCBr + NaN3 «empty-parens»()", "R:CCBr | R:NaN3"},
+		{"CCBr + NaN3 «unclosed-paren ~write an amount and»(", "R:CCBr | R:NaN3"},
+		{"CCBr + NaN3 «half-arrow ~write '->'»-", "R:CCBr | R:phrase=NaN3 -"},
 		// Marks and labels.
 		{"«mark-space ~put a space after the mark»[x]CCBr + NaN3", "mark:done | R:CCBr | R:NaN3"},
 		{"«label-bad ~holds '@'»a@b: CCBr + NaN3", "label:a@b | R:CCBr | R:NaN3"},
 		{"«label-empty»: CCBr", "label: | R:CCBr"},
+		{"«missing-substrate ~step number '3\\.'»3.", "label:3"},
 		{"CCBr + @az«reference-bad ~holds '\\['»[1]", "R:CCBr | R:@az[1]"},
 		// Bytes.
 		{"CCBr + Na«invalid-utf8 ~0xFF»\xffN3", "R:CCBr | R:Na\xffN3"},
@@ -313,4 +320,13 @@ func TestParseLines(t *testing.T) {
 	steps[0].Products = append(steps[0].Products, &Term{})
 	steps[0].Conditions = append(steps[0].Conditions, &Term{})
 	assert.Equal(t, before, steps[1].String())
+}
+
+func TestParseLinesBadSpan(t *testing.T) {
+	steps, errs := ParseLines([]byte("CCBr"), []source.Span{{Start: 2, End: 9}, {Start: 3, End: 1}, {Start: 0, End: 4}})
+	require.Len(t, steps, 3)
+	assert.Equal(t, "bad-span", errs[0][0].Code)
+	assert.Equal(t, "bad-span", errs[1][0].Code)
+	assert.Empty(t, errs[2])
+	assert.Equal(t, "CCBr", steps[2].Substrate().Text)
 }

@@ -93,6 +93,10 @@ func (p *parser) term(toks []tok, sep *Sep) *Term {
 // notation can recognise without knowing chemistry.
 func (p *parser) wordChecks(tk tok) {
 	w := p.src[tk.start:tk.end]
+	if len(w) == 1 && w[0] == '-' {
+		p.errorf(tk.start, tk.end, "half-arrow", "'-' stands alone; write '->' before the expected product, or delete it")
+		return
+	}
 	depth := 0
 	for i, c := range w {
 		switch c {
@@ -236,6 +240,9 @@ func (p *parser) single(ws []tok, last bool) (*Quantity, int) {
 			q.To.Kind, q.To.Unit = u.kind, u.name
 		}
 	}
+	if w[num.end:] == "." {
+		num.end++ // "2. equiv"
+	}
 	if rest := w[num.end:]; rest != "" {
 		// Glued unit: "60°C", "3h", "1.5eq", "3mol%".
 		u, ok := lookupUnit(rest)
@@ -280,12 +287,16 @@ func (p *parser) group(t *Term, g tok) {
 	innerEnd := g.end
 	if g.closed {
 		innerEnd--
-	} else {
-		p.errorf(g.start, g.start+1, "unclosed-paren",
-			"'(' is not closed; write ')' after %s", quote(strings.TrimSpace(p.str[g.start+1:g.end])))
 	}
 	toks := p.lex(p.groupBuf[:0], g.start+1, innerEnd)
-	if len(toks) == 0 {
+	switch {
+	case !g.closed && len(toks) == 0:
+		p.errorf(g.start, g.start+1, "unclosed-paren", "'(' is not closed; write an amount and ')', as in '(1.5 eq)'")
+		return
+	case !g.closed:
+		p.errorf(g.start, g.start+1, "unclosed-paren",
+			"'(' is not closed; write ')' after %s", quote(strings.TrimSpace(p.str[g.start+1:g.end])))
+	case len(toks) == 0:
 		p.errorf(g.start, g.end, "empty-parens", "empty parentheses; write an amount such as '(1.5 eq)' or delete them")
 		return
 	}
@@ -394,6 +405,11 @@ func (p *parser) substance(run []tok) *Substance {
 		return s
 	}
 	whole := p.span(run[0].start, run[len(run)-1].end)
+	if len(bounds) == 1 { // no mark joins parts after all ("F/C=C/F")
+		s := build(pieces)
+		s.Span = whole
+		return s
+	}
 	m := p.newSubstance()
 	*m = Substance{Span: whole, Kind: Mixture, Parts: make([]*Substance, 0, len(bounds))}
 	from := 0

@@ -36,10 +36,13 @@ func (l *ErrorList) Addf(span Span, code, format string, args ...any) {
 	l.Add(span, code, fmt.Sprintf(format, args...))
 }
 
-// Len, Swap and Less make ErrorList a sort.Interface ordered by start,
-// then end, then message.
-func (l ErrorList) Len() int      { return len(l) }
+// Len returns the number of errors (sort.Interface).
+func (l ErrorList) Len() int { return len(l) }
+
+// Swap exchanges two errors (sort.Interface).
 func (l ErrorList) Swap(i, j int) { l[i], l[j] = l[j], l[i] }
+
+// Less orders errors by start, then end, then message (sort.Interface).
 func (l ErrorList) Less(i, j int) bool {
 	a, b := l[i], l[j]
 	if a.Span.Start != b.Span.Start {

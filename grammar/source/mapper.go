@@ -1,6 +1,8 @@
 package source
 
 import (
+	"bytes"
+	"encoding/binary"
 	"errors"
 	"fmt"
 	"sort"
@@ -35,25 +37,49 @@ var ErrOutOfRange = errors.New("position out of range")
 // must not change it afterwards.
 func NewMapper(text []byte) *Mapper {
 	m := &Mapper{text: text, starts: make([]int, 1, 1+len(text)/32)}
-	ascii := true
-	for i := 0; i < len(text); i++ {
-		c := text[i]
-		if c >= utf8.RuneSelf {
-			ascii = false
-			continue
+	// Find line feeds with the vectorised IndexByte, then lone carriage
+	// returns inside each line; a text of Windows or Unix line ends is
+	// scanned at memory speed.
+	pos := 0
+	for pos < len(text) {
+		lineEnd, next := len(text), -1
+		if nl := bytes.IndexByte(text[pos:], '\n'); nl >= 0 {
+			lineEnd, next = pos+nl, pos+nl+1
 		}
-		if c != '\n' && c != '\r' {
-			continue
+		for {
+			cr := bytes.IndexByte(text[pos:lineEnd], '\r')
+			if cr < 0 || pos+cr+1 == lineEnd && next >= 0 {
+				break // no CR, or the CR of a CRLF
+			}
+			m.ascii = append(m.ascii, isASCII(text[pos:pos+cr]))
+			pos += cr + 1
+			m.starts = append(m.starts, pos)
 		}
-		if c == '\r' && i+1 < len(text) && text[i+1] == '\n' {
-			i++
+		if next < 0 {
+			break
 		}
-		m.ascii = append(m.ascii, ascii)
-		m.starts = append(m.starts, i+1)
-		ascii = true
+		m.ascii = append(m.ascii, isASCII(text[pos:lineEnd]))
+		m.starts = append(m.starts, next)
+		pos = next
 	}
-	m.ascii = append(m.ascii, ascii)
+	m.ascii = append(m.ascii, isASCII(text[min(pos, len(text)):]))
 	return m
+}
+
+// isASCII reports whether b holds only ASCII bytes, eight at a time.
+func isASCII(b []byte) bool {
+	for len(b) >= 8 {
+		if binary.LittleEndian.Uint64(b)&0x8080808080808080 != 0 {
+			return false
+		}
+		b = b[8:]
+	}
+	for _, c := range b {
+		if c >= utf8.RuneSelf {
+			return false
+		}
+	}
+	return true
 }
 
 // Text returns the text the Mapper was made for.

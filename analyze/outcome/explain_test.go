@@ -6,12 +6,12 @@ import (
 	"testing"
 )
 
-// TestDebugOne prints the reasons for one step given in WALDEN_DEBUG as
+// TestExplainStep prints the reasons for one step given in WALDEN_EXPLAIN as
 // "substrate|reagent;reagent|solvent".
-func TestDebugOne(t *testing.T) {
-	spec := os.Getenv("WALDEN_DEBUG")
+func TestExplainStep(t *testing.T) {
+	spec := os.Getenv("WALDEN_EXPLAIN")
 	if spec == "" {
-		t.Skip("set WALDEN_DEBUG to run")
+		t.Skip("set WALDEN_EXPLAIN to run")
 	}
 	parts := strings.Split(spec, "|")
 	st := Step{Substrate: mustParse(t, parts[0])}
