@@ -165,7 +165,11 @@ func writePrediction(w io.Writer, line string, st analyze.StepReport, diags []an
 			if x.Major {
 				role = "major"
 			}
-			fmt.Fprintf(w, "  %-5s %-4s %4.0f%%  %s\n", role, x.Mechanism, 100*x.Fraction, x.SMILES)
+			mech := x.Mechanism
+			if mech == "" || mech == "none" {
+				mech = "–" // no bond to the carbon made or broken (e.g. O-sulfonylation)
+			}
+			fmt.Fprintf(w, "  %-5s %-4s %4.0f%%  %s\n", role, mech, 100*x.Fraction, x.SMILES)
 		}
 		if len(p.Products) == 0 && p.NotAnalysed == "" {
 			fmt.Fprintf(w, "  %s: no product\n", p.Mechanism)

@@ -343,4 +343,3 @@ func stereoBatch(in io.Reader, out io.Writer, asJSON bool) error {
 // smilesLineLimit bounds one input line of --file (16 MiB); the SMILES
 // reader refuses molecules far smaller than that with its own message.
 const smilesLineLimit = 16 << 20
-

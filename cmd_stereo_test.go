@@ -47,14 +47,14 @@ func labelsOf(r stereoJSON) string {
 // SMILES order as there.
 func TestStereoJSON(t *testing.T) {
 	tests := []struct{ smi, want string }{
-		{"Cl[C@H](Br)F", "2R"},                        // VS162
-		{"C/C=C\\C", "2-3Z"},                          // VS060
-		{"CC/C=C\\C=C\\CC", "3-4Z 5-6E"},              // VS058
-		{"NC(=[C@]=C(C)O)Br", "2-4P"},                 // VS144
-		{"C[S@](=O)C=1C=CC=CC1", "2S"},                // VS074
-		{"O[C@H]1CC[C@H](CC1)O", "2s 5s"},             // VS222
-		{"C[C@H](O)[2H]", "2R"},                       // VS182
-		{"C1=CCC=CC=C1", ""},                          // VS002: no stereo
+		{"Cl[C@H](Br)F", "2R"},                         // VS162
+		{"C/C=C\\C", "2-3Z"},                           // VS060
+		{"CC/C=C\\C=C\\CC", "3-4Z 5-6E"},               // VS058
+		{"NC(=[C@]=C(C)O)Br", "2-4P"},                  // VS144
+		{"C[S@](=O)C=1C=CC=CC1", "2S"},                 // VS074
+		{"O[C@H]1CC[C@H](CC1)O", "2s 5s"},              // VS222
+		{"C[C@H](O)[2H]", "2R"},                        // VS182
+		{"C1=CCC=CC=C1", ""},                           // VS002: no stereo
 		{"C[C@H]1CCC[C@@]12C[C@H](CCC2)C", "2S 6R 8S"}, // VS028
 	}
 	for _, tc := range tests {

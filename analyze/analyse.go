@@ -206,7 +206,12 @@ func spanOf(in *stepInput, on party, index int) (source.Span, string, bool) {
 // atomSpan returns the span of substrate atom a inside the line, when the
 // substrate was written as SMILES in it.
 func atomSpan(in *stepInput, a int) (source.Span, bool) {
-	s := in.substrate
+	return smilesAtomSpan(in.substrate, a)
+}
+
+// smilesAtomSpan returns the span of atom a of a substance written as
+// SMILES in the line.
+func smilesAtomSpan(s *substance, a int) (source.Span, bool) {
 	if s == nil || !s.asSMILES || s.mol == nil || a < 0 || a >= len(s.mol.Atoms) {
 		return source.Span{}, false
 	}

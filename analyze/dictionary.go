@@ -28,7 +28,21 @@ type entry struct {
 	solvent *reagents.Solvent
 }
 
+// dictionaries shares one dictionary per names file content between
+// Engines (walden check makes one Engine per file): the molecules and the
+// SMILES index are read once per process.
+var dictionaries sync.Map // LabNamesFile + "\x00" + LabNames → *dictionary
+
 func newDictionary(cfg Config) *dictionary {
+	key := cfg.LabNamesFile + "\x00" + string(cfg.LabNames)
+	if d, ok := dictionaries.Load(key); ok {
+		return d.(*dictionary)
+	}
+	d, _ := dictionaries.LoadOrStore(key, readDictionary(cfg))
+	return d.(*dictionary)
+}
+
+func readDictionary(cfg Config) *dictionary {
 	d := &dictionary{d: reagents.Builtin()}
 	if len(cfg.LabNames) > 0 {
 		nd, errs := reagents.Load(cfg.LabNames, cfg.LabNamesFile)

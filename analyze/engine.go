@@ -138,10 +138,9 @@ func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) 
 			res := e.result(ent, key, refs)
 			ps := placedStep{base: l.start, span: source.Span{Start: l.start, End: l.start + source.Pos(len(l.text))}, res: res, text: l.text, nLabels: len(order)}
 			rep.steps = append(rep.steps, ps)
-			rep.Steps = append(rep.Steps, ps.report())
-			for _, d := range res.diags {
-				rep.Diagnostics = append(rep.Diagnostics, shiftDiag(d, l.start))
-			}
+			placed := res.placed(ps)
+			rep.Steps = append(rep.Steps, placed.step)
+			rep.Diagnostics = append(rep.Diagnostics, placed.diags...)
 			rep.Diagnostics = append(rep.Diagnostics, e.labelDiags(res, l.start, defined, later)...)
 			if res.label != "" {
 				if prev, dup := defined[res.label]; dup {
@@ -313,12 +312,19 @@ func shiftFixes(fs []Fix, by source.Pos) []Fix {
 	if len(fs) == 0 {
 		return nil
 	}
+	n := 0
+	for _, f := range fs {
+		n += len(f.Edits)
+	}
 	out := make([]Fix, len(fs))
+	slab := make([]Edit, n) // one allocation for every edit of every fix
 	for i, f := range fs {
-		out[i] = Fix{Title: f.Title, Preferred: f.Preferred, Edits: make([]Edit, len(f.Edits))}
+		es := slab[:len(f.Edits):len(f.Edits)]
+		slab = slab[len(f.Edits):]
 		for j, ed := range f.Edits {
-			out[i].Edits[j] = Edit{Span: ed.Span.Shift(by), NewText: ed.NewText}
+			es[j] = Edit{Span: ed.Span.Shift(by), NewText: ed.NewText}
 		}
+		out[i] = Fix{Title: f.Title, Preferred: f.Preferred, Edits: es}
 	}
 	return out
 }

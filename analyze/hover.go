@@ -162,38 +162,49 @@ func substanceHovers(in *stepInput) []partHover {
 	return out
 }
 
-// atomHovers describes each atom of a substrate written as SMILES: its
-// CIP label and its role in the step.
+// atomHovers describes the atoms of the substances written as SMILES in
+// the line: the CIP label of each stereocentre, and for the substrate
+// each atom's role in the step (reacting carbon, leaving group) and what
+// happens to its configuration.
 func atomHovers(in *stepInput, pred *prediction) []partHover {
-	s := in.substrate
-	if s == nil || !s.asSMILES || s.mol == nil {
-		return nil
-	}
-	labels := cipLabels(s.mol)
 	var out []partHover
-	for i, a := range s.mol.Atoms {
-		sp, ok := atomSpan(in, i)
-		if !ok {
+	all := append([]*substance{in.substrate}, in.reagents...)
+	all = append(all, in.products...)
+	for _, s := range all {
+		if s == nil || !s.asSMILES || s.mol == nil {
 			continue
 		}
-		role := pred.roles[i]
-		l := labels[i]
-		if role == "" && l == "" {
-			continue
-		}
-		md := fmt.Sprintf("**atom %d** (%s)", i+1, a.Element.Symbol())
-		if l != "" {
-			md += fmt.Sprintf(" — CIP **%s**", l)
-		}
-		if role != "" {
-			md += "\n\n" + role
-		}
-		for _, c := range pred.stereo {
-			if c.atom == i {
-				md += fmt.Sprintf("\n\nIn this step: %s → %s (%s)", orDash(c.before), orDash(c.after), c.outcome)
+		isSubstrate := s == in.substrate
+		labels := cipLabels(s.mol)
+		for i, a := range s.mol.Atoms {
+			sp, ok := smilesAtomSpan(s, i)
+			if !ok {
+				continue
 			}
+			role := ""
+			if isSubstrate {
+				role = pred.roles[i]
+			}
+			l := labels[i]
+			if role == "" && l == "" {
+				continue
+			}
+			md := fmt.Sprintf("**atom %d** (%s)", i+1, a.Element.Symbol())
+			if l != "" {
+				md += fmt.Sprintf(" — CIP **%s**", l)
+			}
+			if role != "" {
+				md += "\n\n" + role
+			}
+			if isSubstrate {
+				for _, c := range pred.stereo {
+					if c.atom == i {
+						md += fmt.Sprintf("\n\nIn this step: %s → %s (%s)", orDash(c.before), orDash(c.after), c.outcome)
+					}
+				}
+			}
+			out = append(out, partHover{span: sp, markdown: md})
 		}
-		out = append(out, partHover{span: sp, markdown: md})
 	}
 	return out
 }

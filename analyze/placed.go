@@ -38,3 +38,31 @@ func (r *Report) stepAt(pos source.Pos) *placedStep {
 	}
 	return nil
 }
+
+// placement is a step result in host positions: its StepReport and
+// diagnostics. Reports are immutable, so one placement serves every
+// report that has the line at the same offset.
+type placement struct {
+	base  source.Pos
+	step  StepReport
+	diags []Diagnostic
+}
+
+// placed returns the result placed at ps.base, reusing the last placement
+// when the line has not moved: an edit moves only the lines after it, and
+// copying the fixes of every diagnostic of a long page is most of the
+// cost of a re-analysis.
+func (r *stepResult) placed(ps placedStep) *placement {
+	if p := r.last.Load(); p != nil && p.base == ps.base && p.step.Span == ps.span {
+		return p
+	}
+	p := &placement{base: ps.base, step: ps.report()}
+	if len(r.diags) > 0 {
+		p.diags = make([]Diagnostic, len(r.diags))
+		for i, d := range r.diags {
+			p.diags[i] = shiftDiag(d, ps.base)
+		}
+	}
+	r.last.Store(p)
+	return p
+}

@@ -1,6 +1,8 @@
 package analyze
 
 import (
+	"sync/atomic"
+
 	"walden/analyze/caution"
 	"walden/analyze/molecule"
 	"walden/analyze/reagents"
@@ -27,8 +29,9 @@ type stepResult struct {
 	in       *stepInput
 	chem     *prediction
 	cautions []caution.Caution
-	slots    []slot      // where completion applies
-	pred     *Prediction // nil when nothing was predicted
+	slots    []slot                    // where completion applies
+	pred     *Prediction               // nil when nothing was predicted
+	last     atomic.Pointer[placement] // the last placement, reused while the line does not move
 }
 
 // refUse is one "@label" in a step.

@@ -182,7 +182,7 @@ func cpuTime(pid int) time.Duration {
 func report(b *testing.B, what string, lat []time.Duration, cmd *exec.Cmd, cpu0 time.Duration) {
 	p50, p99 := percentiles(lat)
 	rss, peak := memory(b, cmd.Process.Pid)
-	cpu := float64((cpuTime(cmd.Process.Pid)-cpu0).Microseconds()) / 1000 / float64(max(1, len(lat)))
+	cpu := float64((cpuTime(cmd.Process.Pid) - cpu0).Microseconds()) / 1000 / float64(max(1, len(lat)))
 	b.ReportMetric(cpu, "server-cpu-ms/op")
 	b.ReportMetric(p50, "p50-ms")
 	b.ReportMetric(p99, "p99-ms")

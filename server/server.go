@@ -7,6 +7,7 @@ import (
 	"sync"
 	"sync/atomic"
 
+	segjson "github.com/segmentio/encoding/json"
 	"go.lsp.dev/jsonrpc2"
 	"go.lsp.dev/protocol"
 
@@ -27,9 +28,10 @@ type Options struct {
 
 // Server is one language server session: one client on one stream.
 type Server struct {
-	opts Options
-	log  *slog.Logger
-	conn jsonrpc2.Conn
+	opts   Options
+	log    *slog.Logger
+	conn   jsonrpc2.Conn
+	stream *stream
 
 	// world is what requests read; replaced, never changed.
 	world atomic.Pointer[world]
@@ -90,8 +92,8 @@ func New(opts Options) *Server {
 func (s *Server) Serve(ctx context.Context, rwc io.ReadWriteCloser) int {
 	s.ctx, s.stop = context.WithCancel(ctx)
 	defer s.stop()
-	st := newStream(rwc, func(err error) { s.log.Warn("bad message skipped", "err", err) })
-	s.conn = jsonrpc2.NewConn(st)
+	s.stream = newStream(rwc, func(err error) { s.log.Warn("bad message skipped", "err", err) })
+	s.conn = jsonrpc2.NewConn(s.stream)
 	s.conn.Go(s.ctx, s.handler())
 	select {
 	case <-s.exited:
@@ -121,9 +123,24 @@ func (s *Server) Serve(ctx context.Context, rwc io.ReadWriteCloser) int {
 }
 
 // notify sends a notification to the client, logging a failure (the
-// client may have gone).
+// client may have gone). It encodes the params once and writes the frame
+// itself: jsonrpc2's Notify encodes them, then re-reads and re-encodes
+// them twice more, which for the diagnostics of a long page costs more
+// than the analysis of an edit.
 func (s *Server) notify(method string, params any) {
-	if err := s.conn.Notify(context.WithoutCancel(s.ctx), method, params); err != nil {
+	p, err := segjson.Marshal(params)
+	if err != nil {
+		s.log.Error("notification not encoded", "method", method, "err", err)
+		return
+	}
+	m, _ := segjson.Marshal(method)
+	body := make([]byte, 0, len(p)+len(m)+40)
+	body = append(body, `{"jsonrpc":"2.0","method":`...)
+	body = append(body, m...)
+	body = append(body, `,"params":`...)
+	body = append(body, p...)
+	body = append(body, '}')
+	if _, err := s.stream.writeFrame(body); err != nil {
 		s.log.Info("notification not sent", "method", method, "err", err)
 	}
 }

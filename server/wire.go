@@ -236,6 +236,8 @@ func (s *stream) Write(ctx context.Context, msg jsonrpc2.Message) (int64, error)
 	return s.writeFrame(data)
 }
 
+// writeFrame writes one frame: a small one in a single write, a large one
+// as header and body, to spare copying the body.
 func (s *stream) writeFrame(body []byte) (int64, error) {
 	s.mu.Lock()
 	defer s.mu.Unlock()
@@ -243,10 +245,14 @@ func (s *stream) writeFrame(body []byte) (int64, error) {
 	s.buf.WriteString("Content-Length: ")
 	s.buf.WriteString(strconv.Itoa(len(body)))
 	s.buf.WriteString("\r\n\r\n")
-	s.buf.Write(body)
+	if len(body) <= 64<<10 {
+		s.buf.Write(body)
+	}
 	n, err := s.out.Write(s.buf.Bytes())
-	if s.buf.Cap() > 1<<20 {
-		s.buf = bytes.Buffer{} // do not keep a 10 MB buffer after one large reply
+	if err == nil && len(body) > 64<<10 {
+		var m int
+		m, err = s.out.Write(body)
+		n += m
 	}
 	if err != nil {
 		return int64(n), fmt.Errorf("writing message: %w", err)

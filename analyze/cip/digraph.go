@@ -63,20 +63,20 @@ type edge struct {
 
 // digraph is the hierarchical digraph of one stereogenic unit.
 type digraph struct {
-	mol   *view
-	nodes []node
-	edges []edge
-	kids  []int32
-	root  int32 // current root
-	rule6 int32 // atom preferred by rule 6, -1 when none
-	limit int
-	cache []sortEntry // by node*numSeqs + rule sequence: the node's ranked out edges in arena
+	mol     *view
+	nodes   []node
+	edges   []edge
+	kids    []int32
+	root    int32 // current root
+	rule6   int32 // atom preferred by rule 6, -1 when none
+	limit   int
+	cache   []sortEntry // by node*numSeqs + rule sequence: the node's ranked out edges in arena
 	arena   []int32
-	rootGen uint32 // counts reroots, for the cache
-	auxGen  uint32 // counts changes of auxiliary descriptors and the rule 6 reference
-	pool    [][]int32 // scratch slices
-	auxMemo []auxMark // by node: whether its branch has auxiliary descriptors
-	ties    [][2]int32 // pairs of edges at the origin tied by the constitutional rules
+	rootGen uint32            // counts reroots, for the cache
+	auxGen  uint32            // counts changes of auxiliary descriptors and the rule 6 reference
+	pool    [][]int32         // scratch slices
+	auxMemo []auxMark         // by node: whether its branch has auxiliary descriptors
+	ties    map[[2]int32]bool // pairs of edges at the origin tied by the constitutional rules
 }
 
 // reset starts a new digraph rooted at atom.
@@ -90,7 +90,7 @@ func (g *digraph) reset(v *view, atom int, limit int) {
 	g.cache = g.cache[:0]
 	g.arena = g.arena[:0]
 	g.auxMemo = g.auxMemo[:0]
-	g.ties = g.ties[:0]
+	clear(g.ties)
 	z := int32(v.m.Atoms[atom].Element)
 	g.nodes = append(g.nodes, node{atom: int32(atom), up: -1, made: -1, dist: 1, zNum: z, zDen: 1, first: -1, last: -1})
 	g.root = 0
@@ -294,9 +294,9 @@ func (g *digraph) nodesOf(atom int32, buf []int32) []int32 {
 // view is what labelling needs from a molecule, computed once.
 type view struct {
 	m        *molecule.Molecule
-	isotopes bool // some atom has a stated mass number
-	fracNum []int32 // averaged atomic number of mancude duplicates made on each atom
-	fracDen []int32
+	isotopes bool    // some atom has a stated mass number
+	fracNum  []int32 // averaged atomic number of mancude duplicates made on each atom
+	fracDen  []int32
 }
 
 // setRule6 makes atom the reference of rule 6 (-1 for none).

@@ -17,6 +17,20 @@ func mancude(m *molecule.Molecule, num, den []int32) {
 	for i := range n {
 		num[i], den[i] = int32(m.Atoms[i].Element), 1
 	}
+	// Every resonant type needs a double bond or a negative charge.
+	possible := false
+	for _, b := range m.Bonds {
+		if b.Order == 2 {
+			possible = true
+			break
+		}
+	}
+	for i := 0; i < n && !possible; i++ {
+		possible = m.Atoms[i].Charge < 0
+	}
+	if !possible {
+		return
+	}
 	ring := m.RingBonds()
 	const (
 		other = iota

@@ -24,12 +24,12 @@ func rdkitAvailable() bool {
 }
 
 type oracleRecord struct {
-	I             int             `json:"i"`
-	Labels        [][]json.Number `json:"-"`
-	Raw           [][3]any        `json:"labels"`
-	Same          *bool           `json:"same_canonical"`
-	RDKitCanon    string          `json:"rdkit_canonical"`
-	Error         string          `json:"error"`
+	I          int             `json:"i"`
+	Labels     [][]json.Number `json:"-"`
+	Raw        [][3]any        `json:"labels"`
+	Same       *bool           `json:"same_canonical"`
+	RDKitCanon string          `json:"rdkit_canonical"`
+	Error      string          `json:"error"`
 }
 
 // runOracle sends every SMILES (with walden's canonical form) through ONE
@@ -174,8 +174,15 @@ func TestRDKitDifferential(t *testing.T) {
 	t.Logf("canonical SMILES: %d of %d read back by RDKit as the input molecule", canonSame, canonCompared)
 }
 
+// knownRDKitDifferences lists generated molecules where RDKit 2022.09 is
+// known to answer against the rules, with the reason walden's answer is
+// the rule's. With the generator's current seed the two agree on every
+// molecule, so the list is empty; a new disagreement fails the test until
+// it is understood and either fixed or entered here.
+var knownRDKitDifferences = map[string]string{}
+
 // explainDifference returns the documented reason for a known difference
 // between walden and RDKit 2022.09, or "".
 func explainDifference(smi string, mine, theirs []string) string {
-	return ""
+	return knownRDKitDifferences[smi]
 }

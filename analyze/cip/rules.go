@@ -213,7 +213,10 @@ func (g *digraph) ligands(seq *ruleSeq, a, b int32, deep bool) int {
 		}
 	}
 	if deep && g.root == 0 && seq == constitutional {
-		g.ties = append(g.ties, [2]int32{a, b})
+		if g.ties == nil {
+			g.ties = make(map[[2]int32]bool)
+		}
+		g.ties[[2]int32{a, b}] = true
 	}
 	return 0
 }
@@ -221,12 +224,7 @@ func (g *digraph) ligands(seq *ruleSeq, a, b int32, deep bool) int {
 // constTied reports whether edges a and b at the origin were found tied
 // by the constitutional rules already.
 func (g *digraph) constTied(a, b int32) bool {
-	for _, t := range g.ties {
-		if t == [2]int32{a, b} || t == [2]int32{b, a} {
-			return true
-		}
-	}
-	return false
+	return g.ties[[2]int32{a, b}] || g.ties[[2]int32{b, a}]
 }
 
 // rank sorts es, edges leaving n, highest first by the rules of seq. It

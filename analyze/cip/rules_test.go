@@ -156,7 +156,7 @@ func TestRule1bAnd6Needed(t *testing.T) {
 		want   Letter
 	}{
 		{"C1[C@H]2CC=C[C@@H]12", 1, prefixes[rule1a], prefixes[rule1b], R}, // VS172: 2R
-		{"O=C1[C@@]2(CCCC2=O)CCC1", 2, prefixes[rule5], allRules, S},        // VS288: 3S
+		{"O=C1[C@@]2(CCCC2=O)CCC1", 2, prefixes[rule5], allRules, S},       // VS288: 3S
 	}
 	for _, tc := range tests {
 		m, err := smiles.Parse(tc.smi)

@@ -42,6 +42,11 @@ func (u Undecided) Reason() string {
 //     least five of them, with no atom shared by three rings (ortho-fused,
 //     as in [5]helicene; linear acenes pass the screen too).
 func Undecideds(m *molecule.Molecule) []Undecided {
+	// Two six-membered rings and three ortho groups need 15 atoms; a
+	// helix needs more. Small molecules are settled without ring search.
+	if len(m.Atoms) < 15 {
+		return nil
+	}
 	ring := m.RingBonds()
 	unsat := make([]bool, len(m.Atoms))
 	for i, a := range m.Atoms {
@@ -125,4 +130,3 @@ func orthoSubstituted(m *molecule.Molecule, ring []bool, a, b int) (n int, ok bo
 	}
 	return n, k == 2
 }
-

@@ -14,9 +14,9 @@ const (
 // unit is one stereogenic unit written in the molecule.
 type unit struct {
 	kind  unitKind
-	atoms [2]int     // centre and -1, or the two ends
-	path  []int32    // atoms from atoms[0] to atoms[1] along the cumulated chain
-	refs  [4]int     // centre: Tetrahedral.Refs; bond: the two Refs; axis: Axial.Refs
+	atoms [2]int  // centre and -1, or the two ends
+	path  []int32 // atoms from atoms[0] to atoms[1] along the cumulated chain
+	refs  [4]int  // centre: Tetrahedral.Refs; bond: the two Refs; axis: Axial.Refs
 	wind  molecule.Winding
 	conf  molecule.Config
 }

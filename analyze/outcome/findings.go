@@ -45,13 +45,10 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 			Message: fmt.Sprintf("the %sbase %s (pKaH %.1f) eliminates here: about %.0f%% alkene predicted", bulky, c.base.Kind, c.base.PKaH, 100*frac[E2]),
 			Fixes:   []Fix{{Kind: ReplaceReagent, Title: "use a weakly basic nucleophile", Names: []string{"NaN3", "NaCN", "KOAc", "NaSPh"}}, {Kind: ChangeTemp, Title: "run it cold", Names: []string{"0 °C"}}}})
 	}
-	if c.nu != nil && c.nu.Charge < 0 && c.md.Protic && o.Mechanism != SN1 && c.possible(SN2) {
+	if c.nu != nil && c.nu.Charge < 0 && c.md.Protic && o.Mechanism != SN1 && c.possible(SN2) && c.act.kind == actNone {
 		best := bestAprotic()
 		factor := math.Pow(10, best.Anion-c.md.Anion)
-		idx := -1
-		if len(st.Solvents) > 0 {
-			idx = 0
-		}
+		idx := proticIndex(st)
 		o.Findings = append(o.Findings, Finding{Code: CodeProticSlows, Severity: Warning, Parties: Parties{Atoms: []int{s.Carbon}, Reactant: nuIdx, Solvent: idx},
 			Message: fmt.Sprintf("%s hydrogen-bonds the anionic %s and slows SN2: about %s times faster in %s (Parker 1969; azide + 1-bromobutane series)", c.md.Name, c.nu.Kind, roundFactor(factor), best.Names[0]),
 			Fixes:   []Fix{{Kind: ReplaceSolvent, Title: "use a dipolar aprotic solvent", Names: []string{"DMF", "DMSO", "acetonitrile", "acetone"}}}})
@@ -80,7 +77,11 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 		o.Findings = append(o.Findings, Finding{Code: CodeAmbident, Severity: Info, Parties: Parties{Reactant: nuIdx, Solvent: -1}, Message: c.nu.Ambident})
 	}
 	if len(rg.Ionic) > 0 && !rg.Crown && c.md.Class == "nonpolar" {
-		o.Findings = append(o.Findings, Finding{Code: CodeInsoluble, Severity: Warning, Parties: Parties{Reactant: rg.Ionic[0], Solvent: 0},
+		solvent := -1
+		if len(st.Solvents) > 0 {
+			solvent = 0
+		}
+		o.Findings = append(o.Findings, Finding{Code: CodeInsoluble, Severity: Warning, Parties: Parties{Reactant: rg.Ionic[0], Solvent: solvent},
 			Message: fmt.Sprintf("the salt will hardly dissolve in %s", c.md.Name),
 			Fixes:   []Fix{{Kind: ReplaceSolvent, Title: "use a polar aprotic solvent", Names: []string{"DMF", "DMSO", "acetonitrile"}}, {Kind: ReplaceReagent, Title: "add a phase-transfer catalyst or crown ether", Names: []string{"18-crown-6", "TBAB"}}}})
 	}
@@ -132,4 +133,23 @@ func distinctSites(c *scoring) int {
 		}
 	}
 	return n
+}
+
+// proticIndex returns the index in st.Solvents of the first protic
+// solvent, or -1.
+func proticIndex(st Step) int {
+	for i, s := range st.Solvents {
+		if s.Solvent == nil {
+			continue
+		}
+		for _, n := range s.Solvent.Names {
+			if e, ok := perceive.LookupSolvent(n, s.Solvent.SMILES); ok && e.Protic {
+				return i
+			}
+		}
+		if s.Solvent.Protic {
+			return i
+		}
+	}
+	return -1
 }

@@ -61,7 +61,9 @@ func Predict(st Step) (o Outcome) {
 	if len(site.Leaving.Atoms) > 0 {
 		o.Leaving = site.Leaving.Atoms
 	}
-	if len(sites) > 1 && sites[1].Carbon != site.Carbon && sub.Sym[sites[1].Carbon] != sub.Sym[site.Carbon] {
+	if len(sites) > 1 && site.Leaving.Kind == perceive.Epoxide && sites[1].Leaving.Attach == site.Leaving.Attach {
+		o.Reasons = append(o.Reasons, Reason{Rule: "epoxide-opening", Text: "a nucleophile opens an epoxide from the back side at the less substituted carbon (basic or neutral conditions)", Source: "Parker, R. E.; Isaacs, N. S. Chem. Rev. 1959, 59, 737"})
+	} else if len(sites) > 1 && sites[1].Carbon != site.Carbon && sub.Sym[sites[1].Carbon] != sub.Sym[site.Carbon] {
 		o.Findings = append(o.Findings, Finding{Code: CodeCompetingSites, Severity: Warning,
 			Message: fmt.Sprintf("two carbons bear leaving groups (%s and %s); the prediction takes the more reactive one (%s)", sites[0].Leaving.Kind, sites[1].Leaving.Kind, site.Leaving.Kind),
 			Parties: Parties{Atoms: []int{site.Carbon, sites[1].Carbon}, Reactant: -1, Solvent: -1}})
