@@ -204,3 +204,16 @@ func TestDefaultSolvent(t *testing.T) {
 		t.Errorf("codes %q: want %s and not the outcome's no-solvent", got, CodeDefaultSolvent)
 	}
 }
+
+// TestHoverOnProductAtom labels the atoms of a product written after
+// '->': C[C@H](N=[N+]=[N-])CCc1ccccc1 is the S azide (RDKit 2022.09
+// rdCIPLabeler).
+func TestHoverOnProductAtom(t *testing.T) {
+	src := page("C[C@H](Br)CCc1ccccc1 + NaN3, DMF, 60 °C -> C[C@H](N=[N+]=[N-])CCc1ccccc1")
+	reps := analyse(t, NewEngine(Config{}), src)
+	at := strings.LastIndex(string(src.Text), "[C@H]")
+	md, _, ok := reps[0].Hover(source.Pos(at + 1))
+	if !ok || !strings.Contains(md, "CIP **S**") {
+		t.Errorf("hover on the product's stereocentre: %v %q", ok, md)
+	}
+}

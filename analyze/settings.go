@@ -161,6 +161,7 @@ func LoadSettings(start string, read func(path string) ([]byte, error)) (cfg Con
 					cfg.LabNames = names
 				}
 			}
+			errs.Sort()
 			return cfg, p, errs
 		}
 		parent := filepath.Dir(dir)

@@ -9,18 +9,18 @@ import (
 type activationKind int
 
 const (
-	actNone         activationKind = iota
-	actSulfonylate                 // TsCl, MsCl, Tf2O … with a base: O–S bond formed, configuration kept
-	actMitsunobu                   // PPh3 + azodicarboxylate + acidic pronucleophile: SN2 with inversion
-	actAppel                       // PPh3 + CX4: halide with inversion
-	actHX                          // HCl, HBr, HI: protonated OH leaves as water
-	actDehydrate                   // H3PO4, H2SO4, TsOH with heat: E1 to the alkene
+	actNone        activationKind = iota
+	actSulfonylate                // TsCl, MsCl, Tf2O … with a base: O–S bond formed, configuration kept
+	actMitsunobu                  // PPh3 + azodicarboxylate + acidic pronucleophile: SN2 with inversion
+	actAppel                      // PPh3 + CX4: halide with inversion
+	actHX                         // HCl, HBr, HI: protonated OH leaves as water
+	actDehydrate                  // H3PO4, H2SO4, TsOH with heat: E1 to the alkene
 )
 
 // activation describes the reagents that turn OH into a leaving group.
 type activation struct {
 	kind     activationKind
-	reagent  int                // the reagent that does it (sulfonyl chloride, HX, acid)
+	reagent  int                   // the reagent that does it (sulfonyl chloride, HX, acid)
 	nu       *perceive.Nucleophile // the nucleophile it delivers (halide, pronucleophile anion)
 	nuMol    *molecule.Molecule
 	sulfonyl int // atom S of the sulfonyl chloride

@@ -71,7 +71,7 @@ func findCation(sub *perceive.Substrate, s *perceive.Site) cation {
 		if b.H > 0 {
 			// Hydride moves to the cation; the β-carbon keeps its other bonds
 			// and gains the bond to the old centre as a substituent.
-			v, k := cationAt(m, bt, -1, 0)
+			v, k := cationAt(m, bt, s.Leaving.Attach, 0)
 			v -= w("rearrangement-penalty")
 			if v > best.score+1 {
 				best = cation{centre: bt, score: v, kind: k, shift: "hydride", from: bt, migrant: -1}

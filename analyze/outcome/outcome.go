@@ -96,11 +96,11 @@ type FixKind int
 
 // Kinds of fixes.
 const (
-	ReplaceSolvent FixKind = iota + 1 // use one of Names as the solvent
-	InsertStep                        // insert an activation step (Names: its reagents) before this one
-	ReplaceReagent                    // use one of Names instead of the reagent in Parties.Reactant
-	ChangeTemp                        // run at the temperature in Names[0]
-	ReplaceSubstrate                  // use another substrate (Names: what)
+	ReplaceSolvent   FixKind = iota + 1 // use one of Names as the solvent
+	InsertStep                          // insert an activation step (Names: its reagents) before this one
+	ReplaceReagent                      // use one of Names instead of the reagent in Parties.Reactant
+	ChangeTemp                          // run at the temperature in Names[0]
+	ReplaceSubstrate                    // use another substrate (Names: what)
 )
 
 // Fix is a suggested change in chemical terms.

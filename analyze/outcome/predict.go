@@ -100,7 +100,7 @@ func Predict(st Step) (o Outcome) {
 		c.rule = &Rules[i]
 		Rules[i].Apply(c)
 	}
-	o.Reasons = c.reasons
+	o.Reasons = append(o.Reasons, c.reasons...)
 	distribute(&o, c)
 	findings(&o, st, c, rg)
 	if o.Mechanism == None {

@@ -226,7 +226,10 @@ func describe(m *molecule.Molecule, r *Rings, sym []uint64, c int, lg LeavingGro
 	if r.InRing(c) {
 		s.Flags |= InRing
 		s.RingSize = r.SmallestRing(c)
-		if s.RingSize > 0 && s.RingSize <= 4 {
+		// The strain of an epoxide is what makes it react: its own ring
+		// does not count as a small-ring penalty.
+		ownRing := lg.InRing && r.SmallestRingBond(c, lg.Attach) == s.RingSize
+		if s.RingSize > 0 && s.RingSize <= 4 && !ownRing {
 			s.Flags |= SmallRing
 		}
 		if r.Bridgehead(c) {

@@ -16,6 +16,7 @@ type Error struct {
 	Msg  string
 }
 
+// Error formats e as "start-end: message", byte offsets.
 func (e Error) Error() string {
 	return fmt.Sprintf("%d-%d: %s", e.Span.Start, e.Span.End, e.Msg)
 }
@@ -29,8 +30,14 @@ func (l *ErrorList) Add(span molecule.Span, msg string) {
 	*l = append(*l, &Error{span, msg})
 }
 
-func (l ErrorList) Len() int      { return len(l) }
+// Len, Swap and Less make ErrorList a sort.Interface: by start, then end,
+// then message.
+func (l ErrorList) Len() int { return len(l) }
+
+// Swap exchanges two errors.
 func (l ErrorList) Swap(i, j int) { l[i], l[j] = l[j], l[i] }
+
+// Less orders errors by position.
 func (l ErrorList) Less(i, j int) bool {
 	a, b := l[i].Span, l[j].Span
 	if a.Start != b.Start {

@@ -133,8 +133,10 @@ func (p *parser) kekulise() {
 	if len(lonely) > 0 {
 		a := m.Atoms[lonely[0]]
 		hint := "check the ring for a missing or extra atom, or write it in Kekulé form"
-		for _, i := range lonely {
-			if (m.Atoms[i].Element == molecule.N || m.Atoms[i].Element == molecule.P) && !m.Atoms[i].Bracket {
+		// A bare aromatic n with two neighbours is the usual culprit even
+		// when the matching happened to leave a carbon over.
+		for i := range m.Atoms {
+			if at := m.Atoms[i]; at.Aromatic && !at.Bracket && (at.Element == molecule.N || at.Element == molecule.P) && m.Degree(i) == 2 {
 				hint = "if a nitrogen carries a hydrogen, as in pyrrole, write it as [nH]"
 				break
 			}
