@@ -6,6 +6,7 @@ import (
 	"log/slog"
 	"sync"
 	"sync/atomic"
+	"time"
 
 	segjson "github.com/segmentio/encoding/json"
 	"go.lsp.dev/jsonrpc2"
@@ -97,19 +98,30 @@ func (s *Server) Serve(ctx context.Context, rwc io.ReadWriteCloser) int {
 	s.conn.Go(s.ctx, s.handler())
 	select {
 	case <-s.exited:
-		s.conn.Close()
-		<-s.conn.Done()
 	case <-s.conn.Done():
 		if err := s.conn.Err(); err != nil {
 			s.log.Info("stream ended", "err", err)
 		}
 	case <-ctx.Done():
-		s.conn.Close()
-		<-s.conn.Done()
 	}
+	// Close without waiting for the reading goroutine: a blocking stdin
+	// (the socket pair an editor on libuv hands over, kept open after
+	// exit) is not interrupted by Close, and the specification wants the
+	// process to end at exit. Requests and publishers are given a moment
+	// to finish their last write.
+	s.conn.Close()
 	s.stop()
-	s.requests.Wait()
-	s.pubWG.Wait()
+	finished := make(chan struct{})
+	go func() {
+		s.requests.Wait()
+		s.pubWG.Wait()
+		close(finished)
+	}()
+	select {
+	case <-finished:
+	case <-time.After(time.Second):
+		s.log.Warn("requests still running at exit were abandoned")
+	}
 	s.mu.Lock()
 	defer s.mu.Unlock()
 	select {

@@ -21,7 +21,7 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 		frac[sc.Pathway] = sc.Fraction
 	}
 	strongNu := c.nu != nil && c.nu.Data.N >= 5 && c.nu.Kind != "water" && c.nu.Kind != "alcohol"
-	if s.Degree == perceive.Tertiary && strongNu {
+	if s.Degree == perceive.Tertiary && strongNu && !s.Flags.Has(perceive.AlphaCarbonyl) {
 		o.Findings = append(o.Findings, Finding{Code: CodeTertiarySN2, Severity: Warning, Parties: Parties{Atoms: []int{s.Carbon}, Reactant: nuIdx, Solvent: -1},
 			Message: fmt.Sprintf("the carbon bearing the %s is tertiary: SN2 is blocked, so %s acts as a base or waits for ionisation", s.Leaving.Data.Name, c.nu.Kind)})
 	}

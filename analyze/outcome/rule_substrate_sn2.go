@@ -19,7 +19,7 @@ var substrateSN2Rule = Rule{
 			v += w("cyclohexyl-sn2")
 		}
 		switch {
-		case s.Degree == perceive.Tertiary || s.Flags.Has(perceive.Bridgehead):
+		case (s.Degree == perceive.Tertiary && !s.Flags.Has(perceive.AlphaCarbonyl)) || s.Flags.Has(perceive.Bridgehead):
 			c.block(SN2)
 			c.say("%s carbon: the back side is shielded, so SN2 does not happen", s.Degree)
 			return

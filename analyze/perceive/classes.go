@@ -55,6 +55,9 @@ func ClassEffects(s Site) []ClassEffect {
 	}
 	if f.Has(AlphaCarbonyl) {
 		add("alpha-carbonyl")
+		if s.Degree == Tertiary {
+			add("tertiary-alpha-carbonyl")
+		}
 	}
 	if f.Has(AlphaHetero) {
 		add("alpha-hetero")

@@ -133,6 +133,7 @@ func TestValid(t *testing.T) {
 		{"CCBr + 2× NaN3, at 60 °C, 298 K, 1 atm, 250 mg, 5 mL, 2 M, 60 oC, 3 hours", "R:CCBr | R:NaN3[2 eq] | C:[60 °C] | C:[298 K] | C:[1 atm] | C:[250 mg] | C:[5 mL] | C:[2 M] | C:[60 °C] | C:[3 h]"},
 		{"CCBr + NaN3 (1.5 eq, 3.2 mmol), r.t., for 2 h, 2 days, 30 s", "R:CCBr | R:NaN3[1.5 eq][3.2 mmol] | C:[rt] | C:[2 h] | C:[2 d] | C:[30 s]"},
 		{"CCBr + [K+].[C-]#N, tert-butanol, 2-propanol", "R:CCBr | R:[K+].[C-]#N | C:tert-butanol | C:2-propanol"},
+		{"(+)-camphor + (±)-2-butanol, (R)-BINAP (5 mol%)", "R:(+)-camphor | R:(±)-2-butanol | C:(R)-BINAP[5 mol%]"},
 	} {
 		st, errs := Parse([]byte(tc.line), 0)
 		assert.Empty(t, errs, "%q", tc.line)

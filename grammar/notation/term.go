@@ -100,9 +100,9 @@ func (p *parser) wordChecks(tk tok) {
 	depth := 0
 	for i, c := range w {
 		switch c {
-		case '[':
+		case '[', '(':
 			depth++
-		case ']':
+		case ']', ')':
 			depth--
 		case '>':
 			p.errorf(tk.start+i, tk.start+i+1, "reaction-smiles",
@@ -110,7 +110,8 @@ func (p *parser) wordChecks(tk tok) {
 			return
 		case '+':
 			// Outside brackets '+' is no SMILES character: two substances
-			// were joined without spaces.
+			// were joined without spaces. Inside parentheses it is part
+			// of a name such as "(+)-camphor".
 			if depth == 0 && i > 0 && i+1 < len(w) {
 				p.errorf(tk.start+i, tk.start+i+1, "plus-spaces",
 					"'+' inside %s; put a space on each side of '+' to separate substances: %s",
