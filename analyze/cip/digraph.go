@@ -77,6 +77,7 @@ type digraph struct {
 	pool    [][]int32         // scratch slices
 	auxMemo []auxMark         // by node: whether its branch has auxiliary descriptors
 	ties    map[[2]int32]bool // pairs of edges at the origin tied by the constitutional rules
+	path    []uint64          // by node, mol.words words: the atoms on the path from the origin
 }
 
 // reset starts a new digraph rooted at atom.
@@ -94,6 +95,10 @@ func (g *digraph) reset(v *view, atom int, limit int) {
 	z := int32(v.m.Atoms[atom].Element)
 	g.nodes = append(g.nodes, node{atom: int32(atom), up: -1, made: -1, dist: 1, zNum: z, zDen: 1, first: -1, last: -1})
 	g.root = 0
+	if w := v.words; w > 0 {
+		g.path = append(g.path[:0], make([]uint64, w)...)
+		g.path[atom/64] |= 1 << (atom % 64)
+	}
 }
 
 func (g *digraph) addNode(n node, from int32) int32 {
@@ -108,12 +113,24 @@ func (g *digraph) addNode(n node, from int32) int32 {
 	n.first, n.last = 0, 0
 	g.nodes = append(g.nodes, n)
 	g.kids = append(g.kids, e)
+	if w := g.mol.words; w > 0 {
+		// The node's path is its parent's plus its own atom; terminal
+		// nodes are never expanded, but keep their slot for indexing.
+		base := len(g.path)
+		g.path = append(g.path, g.path[int(from)*w:int(from+1)*w]...)
+		if n.atom >= 0 && n.flags&duplicate == 0 {
+			g.path[base+int(n.atom)/64] |= 1 << (n.atom % 64)
+		}
+	}
 	return i
 }
 
 // onPath returns the sphere of the node for atom on the path from the
 // origin to n, or 0 when atom is not on it.
 func (g *digraph) onPath(n int32, atom int32) int32 {
+	if w := g.mol.words; w > 0 && g.path[int(n)*w+int(atom)/64]&(1<<(atom%64)) == 0 {
+		return 0
+	}
 	for n >= 0 {
 		if g.nodes[n].atom == atom {
 			return g.nodes[n].dist
@@ -295,6 +312,7 @@ func (g *digraph) nodesOf(atom int32, buf []int32) []int32 {
 type view struct {
 	m        *molecule.Molecule
 	isotopes bool    // some atom has a stated mass number
+	words    int     // words of a node's path bitset; 0 for large molecules, whose paths are walked
 	fracNum  []int32 // averaged atomic number of mancude duplicates made on each atom
 	fracDen  []int32
 }

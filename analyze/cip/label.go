@@ -23,6 +23,7 @@ type Labeller struct {
 
 	g     digraph
 	v     view
+	spent int // digraph nodes made for the current molecule
 	units []unit
 	es    [2][]int32
 }
@@ -48,6 +49,7 @@ func (l *Labeller) Label(m *molecule.Molecule) ([]Descriptor, error) {
 	l.prepare(m)
 	var out []Descriptor
 	var err error
+	l.spent = 0
 	for i := range l.units {
 		d, e := l.labelUnit(i)
 		if e != nil && err == nil {
@@ -66,9 +68,23 @@ func (l *Labeller) Label(m *molecule.Molecule) ([]Descriptor, error) {
 	return out, err
 }
 
+// maxPathWords bounds the path bitsets (128 bytes a node, 12.8 MB for a
+// full digraph); larger molecules find ring closures by walking up.
+const maxPathWords = 16
+
+// MoleculeNodeLimit caps the digraph nodes made for all the units of one
+// molecule together, so that a molecule with thousands of centres stays
+// within bounded time; units labelled after it is spent get a
+// *BudgetError.
+const MoleculeNodeLimit = 1_000_000
+
 func (l *Labeller) prepare(m *molecule.Molecule) {
 	n := len(m.Atoms)
 	l.v.m = m
+	l.v.words = (n + 63) / 64
+	if l.v.words > maxPathWords {
+		l.v.words = 0
+	}
 	l.v.isotopes = false
 	for i := range m.Atoms {
 		if m.Atoms[i].Isotope != 0 {
@@ -94,7 +110,11 @@ func (l *Labeller) labelUnit(i int) (d Letter, err error) {
 	if limit <= 0 {
 		limit = DefaultNodeLimit
 	}
+	if left := MoleculeNodeLimit - l.spent; left < limit {
+		limit = max(left, 1)
+	}
 	defer func() {
+		l.spent += len(l.g.nodes)
 		if r := recover(); r != nil {
 			if _, ok := r.(overBudget); !ok {
 				panic(r)
