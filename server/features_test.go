@@ -189,6 +189,7 @@ func runFeature(t *testing.T, file string) {
 		}
 		showInlays(t, c, d, &out)
 		showSymbols(t, c, d, &out)
+		showTokens(t, c, d, &out)
 	}
 	golden(t, strings.TrimSuffix(file, ".txtar")+".golden", out.String())
 }
@@ -324,6 +325,41 @@ func showSymbols(t *testing.T, c *testClient, d *featureDoc, out *strings.Builde
 		if s.Detail != "" {
 			fmt.Fprintf(out, " — %s", s.Detail)
 		}
+		fmt.Fprintln(out)
+	}
+}
+
+// showTokens decodes the semantic tokens into one line per step line:
+// "tokens L: char+length type, …".
+func showTokens(t *testing.T, c *testClient, d *featureDoc, out *strings.Builder) {
+	var toks protocol.SemanticTokens
+	c.call(methodSemanticTokensFull, &protocol.SemanticTokensParams{TextDocument: protocol.TextDocumentIdentifier{URI: d.uri}}, &toks)
+	if len(toks.Data)%5 != 0 {
+		t.Fatalf("%s: %d semantic token numbers, not a multiple of 5", d.name, len(toks.Data))
+	}
+	var line, char uint32
+	cur := -1
+	for i := 0; i < len(toks.Data); i += 5 {
+		dl, dc, n, typ := toks.Data[i], toks.Data[i+1], toks.Data[i+2], toks.Data[i+3]
+		if dl > 0 {
+			line, char = line+dl, dc
+		} else {
+			char += dc
+		}
+		if int(line) != cur {
+			if cur >= 0 {
+				fmt.Fprintln(out)
+			}
+			fmt.Fprintf(out, "tokens %d:", line)
+			cur = int(line)
+		}
+		name := "?"
+		if int(typ) < len(legend.TokenTypes) {
+			name = string(legend.TokenTypes[typ])
+		}
+		fmt.Fprintf(out, " %d+%d %s", char, n, name)
+	}
+	if cur >= 0 {
 		fmt.Fprintln(out)
 	}
 }
