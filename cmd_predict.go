@@ -175,11 +175,7 @@ func writePrediction(w io.Writer, line string, st analyze.StepReport, diags []an
 			fmt.Fprintf(w, "  %s: no product\n", p.Mechanism)
 		}
 		for _, c := range p.Stereo {
-			letter := "the CIP letter stays"
-			if c.LetterChanged {
-				letter = "the CIP letter changes"
-			}
-			fmt.Fprintf(w, "  atom %d: %s → %s, %s (%s)\n", c.Atom+1, dash(c.Before), dash(c.After), c.Outcome, letter)
+			fmt.Fprintf(w, "  atom %d: %s\n", c.Atom+1, c.Describe())
 		}
 		if len(p.Through) > 1 {
 			fmt.Fprintf(w, "  through the plan: %s\n", strings.Join(p.Through, " → "))

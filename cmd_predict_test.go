@@ -91,3 +91,36 @@ func TestPredictUsage(t *testing.T) {
 		t.Errorf("code %d, want %d", code, exitUsage)
 	}
 }
+
+// TestPredictLostCentreWords: potassium tert-butoxide in tert-butanol
+// eliminates from (S)-2-bromobutane (E2 with a bulky base, Hofmann
+// orientation: Brown, Moritani, Okamoto J. Am. Chem. Soc. 1956, 78, 2193,
+// from memory), so the reacting carbon ends in the alkene. Neither the
+// text nor the JSON may say that its CIP letter stays.
+func TestPredictLostCentreWords(t *testing.T) {
+	line := "C[C@H](Br)CC + KOtBu, tBuOH"
+	text, _, _ := runCmd("predict", line)
+	if strings.Contains(text, "letter stays") || !strings.Contains(text, "atom 2: S → –, lost (the carbon becomes part of the double bond)") {
+		t.Errorf("text output:\n%s", text)
+	}
+	out, _, _ := runCmd("predict", "--json", line)
+	var got struct {
+		Mechanism string `json:"mechanism"`
+		Stereo    []struct {
+			Atom          int    `json:"atom"`
+			Before        string `json:"before"`
+			After         string `json:"after"`
+			Outcome       string `json:"outcome"`
+			LetterChanged bool   `json:"letter_changed"`
+		} `json:"stereo"`
+	}
+	if err := json.Unmarshal([]byte(out), &got); err != nil {
+		t.Fatalf("%v\n%s", err, out)
+	}
+	if got.Mechanism != "E2" || len(got.Stereo) != 1 {
+		t.Fatalf("mechanism %q, stereo %+v; want E2 and one centre", got.Mechanism, got.Stereo)
+	}
+	if s := got.Stereo[0]; s.Atom != 2 || s.Before != "S" || s.After != "" || s.Outcome != "lost" || s.LetterChanged {
+		t.Errorf("stereo %+v, want atom 2 S → \"\" lost, letter_changed false", s)
+	}
+}

@@ -8,6 +8,7 @@ import (
 	"log/slog"
 	"os"
 	"os/signal"
+	"runtime/pprof"
 	"syscall"
 
 	"walden/server"
@@ -26,6 +27,7 @@ func runServe(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	fs.SetOutput(stderr)
 	logFile := fs.String("log", "", "append the server's log to `FILE` instead of stderr")
 	verbose := fs.Bool("v", false, "log every message, not only problems")
+	cpuProfile := fs.String("cpuprofile", "", "write a CPU profile of the session to `FILE` (for benchmarks)")
 	fs.Usage = func() {
 		fmt.Fprintln(stderr, "usage: walden serve [--log FILE] [-v]\n\nSpeaks the Language Server Protocol over stdin and stdout; editors start it.")
 		fs.PrintDefaults()
@@ -60,6 +62,20 @@ func runServe(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	if stdout == os.Stdout {
 		os.Stdout = os.Stderr
 		defer func() { os.Stdout = stdout.(*os.File) }()
+	}
+
+	if *cpuProfile != "" {
+		f, err := os.Create(*cpuProfile)
+		if err != nil {
+			fmt.Fprintf(stderr, "walden serve: %v\n", err)
+			return 1
+		}
+		defer f.Close()
+		if err := pprof.StartCPUProfile(f); err != nil {
+			fmt.Fprintf(stderr, "walden serve: %v\n", err)
+			return 1
+		}
+		defer pprof.StopCPUProfile()
 	}
 
 	ctx, stop := signal.NotifyContext(context.Background(), os.Interrupt, syscall.SIGTERM)

@@ -75,7 +75,11 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 		return res
 	}
 	e.applyDefaults(in)
+	takeElectrophile(in)
 	pred := e.predict(in)
+	if in.electrophileFirst != "" {
+		pred.reasons = append([]string{in.electrophileFirst}, pred.reasons...)
+	}
 	cautions := cautionsFor(in)
 	found := placeFindings(in, pred)
 	if hasCode(r.diags, CodeUnknownName) || hasCode(r.diags, CodeSMILES) {

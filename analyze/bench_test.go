@@ -4,8 +4,27 @@ import (
 	"context"
 	"fmt"
 	"strings"
+	"syscall"
 	"testing"
+	"time"
 )
+
+// cpuTime is the process's user+system CPU time, garbage collector
+// included: on a loaded machine it says more than the wall clock.
+func cpuTime() time.Duration {
+	var ru syscall.Rusage
+	if syscall.Getrusage(syscall.RUSAGE_SELF, &ru) != nil {
+		return 0
+	}
+	return time.Duration(ru.Utime.Nano() + ru.Stime.Nano())
+}
+
+// reportCPU adds the "cpu-ms/op" metric for the b.N operations since start.
+func reportCPU(b *testing.B, start time.Duration) {
+	if d := cpuTime() - start; d > 0 {
+		b.ReportMetric(float64(d)/float64(time.Millisecond)/float64(b.N), "cpu-ms/op")
+	}
+}
 
 // benchLines are the kinds of step a notebook holds, cycled with varied
 // numbers so that most lines are distinct (a cold cache sees each once).
@@ -57,6 +76,7 @@ func BenchmarkNotebook10k(b *testing.B) {
 	src := []Source{{Name: "bench.md", Kind: MarkdownPage, Text: benchNotebook(10_000)}}
 	b.ReportAllocs()
 	b.ResetTimer()
+	defer reportCPU(b, cpuTime())
 	for range b.N {
 		NewEngine(Config{}).Analyze(context.Background(), src)
 	}
@@ -70,8 +90,48 @@ func BenchmarkNotebook10kEdit(b *testing.B) {
 	e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: text}})
 	b.ReportAllocs()
 	b.ResetTimer()
+	defer reportCPU(b, cpuTime())
 	for i := range b.N {
 		edited := strings.Replace(string(text), "NaI, acetone, 23 °C", fmt.Sprintf("NaI, acetone, %d °C", 100+i%50), 1)
 		e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: []byte(edited)}})
+	}
+}
+
+// BenchmarkEditOneLine re-analyses a 5,000-step page after an edit of one
+// line near its top, the worst place: every later line moves. Each
+// iteration types one more character or deletes it again, as a chemist
+// does, so the page's length and the positions after the edit change.
+func BenchmarkEditOneLine(b *testing.B) {
+	text := string(benchNotebook(5_000))
+	at := strings.Index(text, "NaI, acetone, 23 °C") + len("NaI, acetone, 23")
+	pages := [][]byte{[]byte(text[:at] + "5" + text[at:]), []byte(text)}
+	e := NewEngine(Config{})
+	for _, p := range pages {
+		e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: p}})
+	}
+	b.ReportAllocs()
+	b.ResetTimer()
+	defer reportCPU(b, cpuTime())
+	for i := range b.N {
+		e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: pages[i%2]}})
+	}
+}
+
+// BenchmarkEditOneLineNew is BenchmarkEditOneLine with a line text the
+// Engine has not seen, so the edited line is parsed and analysed.
+func BenchmarkEditOneLineNew(b *testing.B) {
+	text := string(benchNotebook(5_000))
+	at := strings.Index(text, "NaI, acetone, 23 °C") + len("NaI, acetone, 2")
+	e := NewEngine(Config{})
+	e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: []byte(text)}})
+	pages := make([][]byte, 1000)
+	for i := range pages {
+		pages[i] = []byte(text[:at] + fmt.Sprint(1000+i) + text[at:])
+	}
+	b.ReportAllocs()
+	b.ResetTimer()
+	defer reportCPU(b, cpuTime())
+	for i := range b.N {
+		e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: pages[i%len(pages)]}})
 	}
 }

@@ -12,7 +12,7 @@ func cautionsFor(in *stepInput) []caution.Caution {
 		if s == nil {
 			return
 		}
-		c := caution.Substance{Role: role, Index: i, Text: s.text, Mol: s.mol}
+		c := caution.Substance{Role: role, Index: i, Text: s.shown(), Mol: s.mol}
 		if s.reagent != nil {
 			c.Names = s.reagent.Names
 			c.Acid = s.reagent.Roles&reagents.Acid != 0

@@ -1,8 +1,10 @@
 package analyze
 
 import (
+	"cmp"
 	"context"
 	"fmt"
+	"slices"
 	"sort"
 	"strings"
 	"sync"
@@ -29,16 +31,24 @@ type Engine struct {
 	gen   uint64                // Analyze calls so far, for eviction
 
 	analysed atomic.Int64 // steps analysed (cache misses), for tests and figures
+	diagHint atomic.Int64 // diagnostics in the last one-source Report, to size the next
 }
 
 // lineEntry is everything cached for one line text: its parse and one
 // result per combination of referenced products.
 type lineEntry struct {
+	text    string
 	step    *notation.Step
 	errs    source.ErrorList
 	refs    []string // labels referred to, in order
 	results map[string]*stepResult
 	used    uint64 // the last Analyze generation that used it
+
+	// The products referred to by the last Analyze call that used the
+	// line, and its result: on an edit elsewhere they are the same
+	// pointers, and no key needs building.
+	lastIns []*handOn
+	lastRes *stepResult
 }
 
 // maxCachedLines bounds the cache; past it, lines not used by the latest
@@ -76,12 +86,11 @@ type labelDef struct {
 // Analyze returns one Report per source, in order. Labels defined in an
 // earlier source are visible to later ones. It returns ctx.Err() if the
 // context is cancelled before it finishes.
+//
+// Its cost on an edit is what the changed lines cost to parse and
+// analyse, plus one pass over the page that copies each unchanged line's
+// cached pieces (shifted when the edit moved the line) into the Report.
 func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) {
-	e.mu.Lock()
-	e.gen++
-	gen := e.gen
-	e.mu.Unlock()
-
 	reps := make([]*Report, len(srcs))
 	for i, s := range srcs {
 		reps[i] = &Report{Name: s.Name, dict: e.dict}
@@ -91,75 +100,144 @@ func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) 
 	found := make([][]foundLine, len(srcs))
 	finds := make([][]Diagnostic, len(srcs))
 	ents := make([][]*lineEntry, len(srcs))
-	later := map[string]bool{}
 	for i, s := range srcs {
+		if ctx.Err() != nil {
+			return reps, ctx.Err()
+		}
 		found[i], finds[i] = findLines(s)
 		ents[i] = make([]*lineEntry, len(found[i]))
-		for n, l := range found[i] {
-			if n%256 == 0 && ctx.Err() != nil {
-				return reps, ctx.Err()
+	}
+	gen := e.entries(srcs, found, ents)
+	nLabels := 0
+	for i := range srcs {
+		for _, ent := range ents[i] {
+			if ent.step.Label != nil {
+				nLabels++
 			}
-			ent := e.entry(l.text, gen)
-			ents[i][n] = ent
+		}
+	}
+	later := make(map[string]bool, nLabels)
+	for i := range srcs {
+		for _, ent := range ents[i] {
 			if ent.step.Label != nil {
 				later[ent.step.Label.Name] = true
 			}
 		}
 	}
-	defined := map[string]*labelDef{}
-	var order []*labelDef
+	defined := make(map[string]*labelDef, nLabels)
+	order := make([]*labelDef, 0, nLabels)
+	defs := make([]labelDef, 0, nLabels) // one allocation for every label
+	var a arena
+	var ins []*handOn // the products a line refers to, reused line to line
+	e.mu.Lock()
+	defer e.mu.Unlock()
 	for i := range srcs {
 		rep := reps[i]
 		rep.Steps = make([]StepReport, 0, len(found[i]))
 		rep.steps = make([]placedStep, 0, len(found[i]))
-		rep.Diagnostics = make([]Diagnostic, 0, len(finds[i])+len(found[i])/2)
+		rep.Diagnostics = make([]Diagnostic, 0, len(finds[i])+max(len(found[i])/2, int(e.diagHint.Load())))
 		rep.Diagnostics = append(rep.Diagnostics, finds[i]...)
 		for n, l := range found[i] {
 			if n%64 == 0 && ctx.Err() != nil {
 				return reps, ctx.Err()
 			}
 			ent := ents[i][n]
-			var refs map[string]*handOn
-			key := ""
-			if len(ent.refs) > 0 {
-				refs = make(map[string]*handOn, len(ent.refs))
-				var kb strings.Builder
-				for _, name := range ent.refs {
-					kb.WriteString(name)
-					if d, ok := defined[name]; ok {
-						refs[name] = d.handOn
-						kb.WriteString("=" + d.handOn.key() + "\x00")
-					} else {
-						kb.WriteString("=?\x00")
-					}
+			ins = ins[:0]
+			for _, name := range ent.refs {
+				if d, ok := defined[name]; ok {
+					ins = append(ins, d.handOn)
+				} else {
+					ins = append(ins, undefinedRef)
 				}
-				key = kb.String()
 			}
-			res := e.result(ent, key, refs)
-			ps := placedStep{base: l.start, span: source.Span{Start: l.start, End: l.start + source.Pos(len(l.text))}, res: res, text: l.text, nLabels: len(order)}
+			res := e.resultLocked(ent, ins)
+			ps := placedStep{base: l.start, span: source.Span{Start: l.start, End: l.end}, res: res, text: ent.text, nLabels: len(order)}
 			rep.steps = append(rep.steps, ps)
-			placed := res.placed(ps)
-			rep.Steps = append(rep.Steps, placed.step)
-			rep.Diagnostics = append(rep.Diagnostics, placed.diags...)
-			rep.Diagnostics = append(rep.Diagnostics, e.labelDiags(res, l.start, defined, later)...)
+			from := len(rep.Diagnostics)
+			res.place(rep, ps, &a, e.disabled)
+			if len(res.refs) > 0 {
+				rep.Diagnostics = append(rep.Diagnostics, e.labelDiags(res, l.start, defined, later)...)
+			}
 			if res.label != "" {
 				if prev, dup := defined[res.label]; dup {
 					rep.Diagnostics = append(rep.Diagnostics, Diagnostic{Code: CodeLabelDuplicate, Severity: Error,
 						Message: fmt.Sprintf("label '%s' is already defined%s; later steps use the first one", res.label, where(prev, i, srcs)),
 						Span:    res.labelSpan.Shift(l.start)})
 				} else {
-					d := &labelDef{name: res.label, src: i, span: res.labelSpan.Shift(l.start), handOn: res.handOn}
+					defs = append(defs, labelDef{name: res.label, src: i, span: res.labelSpan.Shift(l.start), handOn: res.handOn})
+					d := &defs[len(defs)-1]
 					defined[res.label] = d
 					order = append(order, d)
 				}
 			}
+			// A line's diagnostics lie within the line: sorting each
+			// line's few keeps the whole list sorted.
+			if len(rep.Diagnostics)-from > 1 {
+				slices.SortStableFunc(rep.Diagnostics[from:], byStart)
+			}
 		}
 		rep.labels = order[:len(order):len(order)]
 		rep.Diagnostics = e.filter(rep.Diagnostics)
-		sort.SliceStable(rep.Diagnostics, func(a, b int) bool { return rep.Diagnostics[a].Span.Start < rep.Diagnostics[b].Span.Start })
+		if len(srcs) == 1 {
+			e.diagHint.Store(int64(len(rep.Diagnostics) + len(rep.Diagnostics)/16))
+		}
+		if !slices.IsSortedFunc(rep.Diagnostics, byStart) {
+			slices.SortStableFunc(rep.Diagnostics, byStart)
+		}
 	}
-	e.evict(gen)
+	e.evictLocked(gen)
 	return reps, ctx.Err()
+}
+
+// byStart orders diagnostics by where they start.
+func byStart(a, b Diagnostic) int { return cmp.Compare(a.Span.Start, b.Span.Start) }
+
+// undefinedRef stands for a label no step before has defined, among the
+// products a line refers to.
+var undefinedRef = new(handOn)
+
+// entries fills ents with the cached parse of every found line, parsing
+// only the lines not seen before, and returns the generation of this
+// call, for eviction.
+func (e *Engine) entries(srcs []Source, found [][]foundLine, ents [][]*lineEntry) uint64 {
+	type miss struct{ src, line int }
+	var misses []miss
+	e.mu.Lock()
+	e.gen++
+	gen := e.gen
+	for i, s := range srcs {
+		for n, l := range found[i] {
+			// Indexing by string(bytes) does not copy the bytes.
+			if ent, ok := e.lines[string(s.Text[l.start:l.end])]; ok {
+				ent.used = gen
+				ents[i][n] = ent
+			} else {
+				misses = append(misses, miss{i, n})
+			}
+		}
+	}
+	e.mu.Unlock()
+	if len(misses) == 0 {
+		return gen
+	}
+	fresh := make([]*lineEntry, len(misses))
+	for k, m := range misses {
+		l := found[m.src][m.line]
+		fresh[k] = newLineEntry(srcs[m.src].Text[l.start:l.end], gen)
+	}
+	e.mu.Lock()
+	for k, m := range misses {
+		ent := fresh[k]
+		if old, ok := e.lines[ent.text]; ok {
+			ent = old // another goroutine, or an equal line above, parsed it first
+			ent.used = gen
+		} else {
+			e.lines[ent.text] = ent
+		}
+		ents[m.src][m.line] = ent
+	}
+	e.mu.Unlock()
+	return gen
 }
 
 // where says in which source an earlier definition is, when not this one.
@@ -205,52 +283,57 @@ func (e *Engine) labelDiags(res *stepResult, base source.Pos, defined map[string
 	return out
 }
 
-// entry returns the cached parse of a line, parsing it on first sight.
-func (e *Engine) entry(text string, gen uint64) *lineEntry {
-	e.mu.Lock()
-	ent, ok := e.lines[text]
-	if ok {
-		ent.used = gen
-		e.mu.Unlock()
-		return ent
-	}
-	e.mu.Unlock()
-	step, errs := notation.Parse([]byte(text), 0)
-	ent = &lineEntry{step: step, errs: errs, results: map[string]*stepResult{}, used: gen}
+// newLineEntry parses a line seen for the first time.
+func newLineEntry(text []byte, gen uint64) *lineEntry {
+	step, errs := notation.Parse(text, 0)
+	ent := &lineEntry{text: string(text), step: step, errs: errs, results: map[string]*stepResult{}, used: gen}
 	for _, r := range references(step) {
 		ent.refs = append(ent.refs, r.name)
 	}
-	e.mu.Lock()
-	if old, ok := e.lines[text]; ok {
-		ent = old // another goroutine parsed it first
-		ent.used = gen
-	} else {
-		e.lines[text] = ent
-	}
-	e.mu.Unlock()
 	return ent
 }
 
-// result returns the cached analysis of a line for the given referenced
-// products, analysing it on a miss.
-func (e *Engine) result(ent *lineEntry, key string, refs map[string]*handOn) *stepResult {
-	e.mu.Lock()
-	res, ok := ent.results[key]
-	e.mu.Unlock()
-	if ok {
-		return res
+// resultLocked returns the cached analysis of a line for the given
+// referenced products (one per ent.refs, undefinedRef for a label not
+// defined), analysing it on a miss. e.mu is held, and released while
+// analysing.
+func (e *Engine) resultLocked(ent *lineEntry, ins []*handOn) *stepResult {
+	// The common case: the same products as last time, by identity.
+	if ent.lastRes != nil && slices.Equal(ent.lastIns, ins) {
+		return ent.lastRes
 	}
-	res = e.analyseSafely(ent, refs)
-	e.mu.Lock()
-	if old, ok := ent.results[key]; ok {
-		res = old
-	} else {
-		if len(ent.results) > 8 {
-			clear(ent.results) // a line whose references keep changing: keep only the latest
+	var refs map[string]*handOn
+	key := ""
+	if len(ent.refs) > 0 {
+		refs = make(map[string]*handOn, len(ent.refs))
+		var kb strings.Builder
+		for k, name := range ent.refs {
+			kb.WriteString(name)
+			if h := ins[k]; h != undefinedRef {
+				refs[name] = h
+				kb.WriteString("=" + h.key() + "\x00")
+			} else {
+				kb.WriteString("=?\x00")
+			}
 		}
-		ent.results[key] = res
+		key = kb.String()
 	}
-	e.mu.Unlock()
+	res, ok := ent.results[key]
+	if !ok {
+		e.mu.Unlock()
+		res = e.analyseSafely(ent, refs)
+		e.mu.Lock()
+		if old, ok := ent.results[key]; ok {
+			res = old
+		} else {
+			if len(ent.results) > 8 {
+				clear(ent.results) // a line whose references keep changing: keep only the latest
+			}
+			ent.results[key] = res
+		}
+	}
+	ent.lastIns = append(ent.lastIns[:0:0], ins...)
+	ent.lastRes = res
 	return res
 }
 
@@ -263,13 +346,15 @@ func (e *Engine) analyseSafely(ent *lineEntry, refs map[string]*handOn) (res *st
 				Message: fmt.Sprintf("not analysed: internal error (%v); please report this line", p)}}, inlay: "not analysed"}
 		}
 	}()
-	return e.analyseStep(ent.step, ent.errs, refs)
+	res = e.analyseStep(ent.step, ent.errs, refs)
+	// Placements copy the tokens in this order into every Report.
+	slices.SortStableFunc(res.tokens, func(a, b Token) int { return cmp.Compare(a.Span.Start, b.Span.Start) })
+	return res
 }
 
-// evict drops lines unused by the latest call once the cache is too big.
-func (e *Engine) evict(gen uint64) {
-	e.mu.Lock()
-	defer e.mu.Unlock()
+// evictLocked drops lines unused by the latest call once the cache is
+// too big. e.mu is held.
+func (e *Engine) evictLocked(gen uint64) {
 	if len(e.lines) <= maxCachedLines {
 		return
 	}
@@ -290,41 +375,6 @@ func (e *Engine) filter(ds []Diagnostic) []Diagnostic {
 		if !e.disabled[d.Code] {
 			out = append(out, d)
 		}
-	}
-	return out
-}
-
-// shiftDiag moves a line-relative diagnostic to its host position.
-func shiftDiag(d Diagnostic, by source.Pos) Diagnostic {
-	d.Span = d.Span.Shift(by)
-	if len(d.Related) > 0 {
-		rel := make([]Related, len(d.Related))
-		for i, r := range d.Related {
-			rel[i] = Related{Span: r.Span.Shift(by), Message: r.Message}
-		}
-		d.Related = rel
-	}
-	d.Fixes = shiftFixes(d.Fixes, by)
-	return d
-}
-
-func shiftFixes(fs []Fix, by source.Pos) []Fix {
-	if len(fs) == 0 {
-		return nil
-	}
-	n := 0
-	for _, f := range fs {
-		n += len(f.Edits)
-	}
-	out := make([]Fix, len(fs))
-	slab := make([]Edit, n) // one allocation for every edit of every fix
-	for i, f := range fs {
-		es := slab[:len(f.Edits):len(f.Edits)]
-		slab = slab[len(f.Edits):]
-		for j, ed := range f.Edits {
-			es[j] = Edit{Span: ed.Span.Shift(by), NewText: ed.NewText}
-		}
-		out[i] = Fix{Title: f.Title, Preferred: f.Preferred, Edits: es}
 	}
 	return out
 }

@@ -5,10 +5,11 @@ import (
 	"walden/grammar/source"
 )
 
-// foundLine is one step line of a source: its text and where it starts.
+// foundLine is one step line of a source: where it lies in the host. Its
+// text is the host's bytes there; the Engine copies them only for a line
+// it has not seen before.
 type foundLine struct {
-	start source.Pos
-	text  string
+	start, end source.Pos
 }
 
 // findLines finds the step lines of a source, with the finder's errors
@@ -21,7 +22,7 @@ func findLines(s Source) ([]foundLine, []Diagnostic) {
 	pg := notebook.Find(f, s.Text)
 	lines := make([]foundLine, 0, len(pg.Lines))
 	for _, l := range pg.Lines {
-		lines = append(lines, foundLine{start: l.Span.Start, text: string(s.Text[l.Span.Start:l.Span.End])})
+		lines = append(lines, foundLine{start: l.Span.Start, end: l.Span.End})
 	}
 	var diags []Diagnostic
 	for _, e := range pg.Errors {

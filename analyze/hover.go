@@ -74,11 +74,7 @@ func stepHover(in *stepInput, pred *prediction, cs []caution.Caution, h *handOn,
 	if len(pred.stereo) > 0 {
 		b.WriteString("\n**Configuration**\n\n")
 		for _, c := range pred.stereo {
-			letter := "the letter stays"
-			if c.letterChanged {
-				letter = "the letter changes"
-			}
-			fmt.Fprintf(&b, "- atom %d: %s → %s (%s; %s)\n", c.atom+1, orDash(c.before), orDash(c.after), c.outcome, letter)
+			fmt.Fprintf(&b, "- atom %d: %s\n", c.atom+1, c.describe())
 		}
 	}
 	if len(pred.distribution) > 1 {

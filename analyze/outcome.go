@@ -70,7 +70,7 @@ func fromOutcome(o *outcome.Outcome, solventIndex map[int]int) *prediction {
 		p.reasons = append(p.reasons, r.Text)
 	}
 	for _, c := range o.Stereo {
-		p.stereo = append(p.stereo, stereoChange{atom: c.Atom, before: c.Before, after: c.After, outcome: string(c.Change), letterChanged: c.LetterChanged})
+		p.stereo = append(p.stereo, stereoChange{atom: c.Atom, before: c.Before, after: c.After, outcome: string(c.Change), letterChanged: c.LetterChanged, why: c.Why})
 	}
 	if o.Site >= 0 {
 		p.roles[o.Site] = "the reacting carbon: it bears the leaving group"

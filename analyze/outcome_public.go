@@ -29,7 +29,16 @@ type StereoChange struct {
 	Atom          int    // 0-based index in the substrate (SMILES input order)
 	Before, After string // CIP letters; "" when the centre has none
 	Outcome       string // "inverted", "retained" or "lost"
-	LetterChanged bool
+	LetterChanged bool   // true only when both letters exist and differ
+	// Why says why a lost centre is lost ("the carbon becomes part of the
+	// double bond"); "" for inverted and retained centres.
+	Why string
+}
+
+// Describe says in words what happened at the centre, the same way in
+// every output: "S → R, inverted (the CIP letter changes)".
+func (c StereoChange) Describe() string {
+	return stereoChange{before: c.Before, after: c.After, outcome: c.Outcome, why: c.Why}.describe()
 }
 
 // PathwayShare is one mechanism's share of the outcome.
@@ -45,7 +54,7 @@ func (p *prediction) public(through []string) *Prediction {
 		out.Products = append(out.Products, PredictedProduct{SMILES: x.smiles, Fraction: x.fraction, Major: x.major, Mechanism: x.mechanism})
 	}
 	for _, c := range p.stereo {
-		out.Stereo = append(out.Stereo, StereoChange{Atom: c.atom, Before: c.before, After: c.after, Outcome: c.outcome, LetterChanged: c.letterChanged})
+		out.Stereo = append(out.Stereo, StereoChange{Atom: c.atom, Before: c.before, After: c.after, Outcome: c.outcome, LetterChanged: c.letterChanged, Why: c.why})
 	}
 	for _, s := range p.distribution {
 		out.Distribution = append(out.Distribution, PathwayShare{s.mechanism, s.fraction})

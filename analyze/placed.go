@@ -15,20 +15,6 @@ type placedStep struct {
 	nLabels int    // how many labels (Report.labels) are visible to the step
 }
 
-// report makes the exported StepReport, in host positions.
-func (ps placedStep) report() StepReport {
-	r := ps.res
-	sr := StepReport{Span: ps.span, Label: r.label, Inlay: r.inlay, Fixes: shiftFixes(r.fixes, ps.base), Prediction: r.pred}
-	if len(r.tokens) > 0 {
-		sr.Tokens = make([]Token, len(r.tokens))
-		for i, t := range r.tokens {
-			sr.Tokens[i] = Token{Span: t.Span.Shift(ps.base), Kind: t.Kind}
-		}
-		sort.Slice(sr.Tokens, func(i, j int) bool { return sr.Tokens[i].Span.Start < sr.Tokens[j].Span.Start })
-	}
-	return sr
-}
-
 // stepAt returns the step whose line holds pos (its end included, where
 // the cursor sits after typing), or nil.
 func (r *Report) stepAt(pos source.Pos) *placedStep {
@@ -48,21 +34,107 @@ type placement struct {
 	diags []Diagnostic
 }
 
-// placed returns the result placed at ps.base, reusing the last placement
-// when the line has not moved: an edit moves only the lines after it, and
-// copying the fixes of every diagnostic of a long page is most of the
-// cost of a re-analysis.
-func (r *stepResult) placed(ps placedStep) *placement {
+// place appends the result placed at ps.base to the report's steps and
+// diagnostics, dropping the diagnostics whose codes are disabled.
+//
+// While a line stays put, its last placement is reused as is. A moved
+// line's pieces are carved from the arena of the Analyze call: a handful
+// of allocations per call instead of several per line. A placement is
+// kept for reuse only once the line is seen at the same offset twice in a
+// row: while a chemist types, the lines after the cursor move on every
+// keystroke, and keeping theirs would be wasted work.
+func (r *stepResult) place(rep *Report, ps placedStep, a *arena, disabled map[string]bool) {
 	if p := r.last.Load(); p != nil && p.base == ps.base && p.step.Span == ps.span {
-		return p
+		rep.Steps = append(rep.Steps, p.step)
+		rep.Diagnostics = append(rep.Diagnostics, p.diags...)
+		return
 	}
-	p := &placement{base: ps.base, step: ps.report()}
-	if len(r.diags) > 0 {
-		p.diags = make([]Diagnostic, len(r.diags))
-		for i, d := range r.diags {
-			p.diags[i] = shiftDiag(d, ps.base)
+	step := StepReport{Span: ps.span, Label: r.label, Inlay: r.inlay, Fixes: a.shiftFixes(r.fixes, ps.base), Prediction: r.pred}
+	if len(r.tokens) > 0 {
+		// r.tokens are sorted when the result is made, and a shift keeps
+		// the order.
+		ts := a.tokens(len(r.tokens))
+		for i, t := range r.tokens {
+			ts[i] = Token{Span: t.Span.Shift(ps.base), Kind: t.Kind}
 		}
+		step.Tokens = ts
+	}
+	rep.Steps = append(rep.Steps, step)
+	from := len(rep.Diagnostics)
+	for _, d := range r.diags {
+		if disabled[d.Code] {
+			continue
+		}
+		d.Span = d.Span.Shift(ps.base)
+		if len(d.Related) > 0 {
+			rel := a.related(len(d.Related))
+			for j, x := range d.Related {
+				rel[j] = Related{Span: x.Span.Shift(ps.base), Message: x.Message}
+			}
+			d.Related = rel
+		}
+		d.Fixes = a.shiftFixes(d.Fixes, ps.base)
+		rep.Diagnostics = append(rep.Diagnostics, d)
+	}
+	if r.seen.Swap(int64(ps.base)) != int64(ps.base) {
+		return // moved since the last call: likely to move again
+	}
+	p := a.placement()
+	p.base, p.step = ps.base, step
+	if n := len(rep.Diagnostics) - from; n > 0 {
+		p.diags = a.diags(n)
+		copy(p.diags, rep.Diagnostics[from:])
 	}
 	r.last.Store(p)
-	return p
+}
+
+// arena hands out the pieces of the placements made by one Analyze call
+// from shared chunks. A chunk is small enough that a placement kept for
+// later calls holds little besides its own pieces alive.
+type arena struct {
+	places  []placement
+	diagBuf []Diagnostic
+	fixBuf  []Fix
+	editBuf []Edit
+	relBuf  []Related
+	tokBuf  []Token
+}
+
+// arenaChunk is how many pieces of one kind a chunk holds.
+const arenaChunk = 128
+
+// carve returns n elements of *buf, starting a new chunk when the current
+// one is too short. The result's capacity is n, so an append by a reader
+// of the Report cannot reach a neighbour's pieces.
+func carve[T any](buf *[]T, n int) []T {
+	if cap(*buf)-len(*buf) < n {
+		*buf = make([]T, 0, max(n, arenaChunk))
+	}
+	l := len(*buf)
+	*buf = (*buf)[:l+n]
+	return (*buf)[l : l+n : l+n]
+}
+
+func (a *arena) placement() *placement    { return &carve(&a.places, 1)[0] }
+func (a *arena) diags(n int) []Diagnostic { return carve(&a.diagBuf, n) }
+func (a *arena) related(n int) []Related  { return carve(&a.relBuf, n) }
+func (a *arena) tokens(n int) []Token     { return carve(&a.tokBuf, n) }
+
+// shiftFixes returns fs moved by the given offset.
+func (a *arena) shiftFixes(fs []Fix, by source.Pos) []Fix {
+	if len(fs) == 0 {
+		return nil
+	}
+	out := carve(&a.fixBuf, len(fs))
+	for i, f := range fs {
+		es := carve(&a.editBuf, len(f.Edits))
+		for j, ed := range f.Edits {
+			es[j] = Edit{Span: ed.Span.Shift(by), NewText: ed.NewText}
+		}
+		if len(es) == 0 {
+			es = nil
+		}
+		out[i] = Fix{Title: f.Title, Preferred: f.Preferred, Edits: es}
+	}
+	return out
 }

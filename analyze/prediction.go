@@ -88,4 +88,5 @@ type stereoChange struct {
 	before, after string // CIP letters; "" when none
 	outcome       string // "inverted", "retained" or "lost"
 	letterChanged bool
+	why           string // why a lost centre is lost; "" otherwise
 }

@@ -32,6 +32,7 @@ type stepResult struct {
 	slots    []slot                    // where completion applies
 	pred     *Prediction               // nil when nothing was predicted
 	last     atomic.Pointer[placement] // the last placement, reused while the line does not move
+	seen     atomic.Int64              // where the line started in the last Analyze call
 }
 
 // refUse is one "@label" in a step.
@@ -87,6 +88,19 @@ type substance struct {
 	asSMILES bool    // read from SMILES written in the line
 }
 
+// shown is how messages name the substance: as written, and for a
+// reference the label with the SMILES it stands for ("@me (CI)"), so
+// that a caution never names a bare label as if it were a chemical.
+func (s *substance) shown() string {
+	if s.ref == "" {
+		return s.text
+	}
+	if s.smiles != "" {
+		return "@" + s.ref + " (" + s.smiles + ")"
+	}
+	return "@" + s.ref
+}
+
 // known reports whether the substance resolved to something walden can
 // reason about.
 func (s *substance) known() bool {
@@ -106,4 +120,7 @@ type stepInput struct {
 	sealed         bool
 	tempSpan       source.Span
 	solventAssumed string // the default used when no solvent is named
+	// electrophileFirst says why a reagent was taken as the substrate
+	// when the line starts with the nucleophile; "" otherwise.
+	electrophileFirst string
 }

@@ -19,7 +19,10 @@ import (
 // The speed targets of the language server, measured as figures (never as
 // timed tests that could fail on a slow machine). The server under test is
 // the real binary, `walden serve`, driven over its stdin and stdout by the
-// jsonrpc2 client of client_test.go, on a 5,000-line notebook page:
+// jsonrpc2 client of client_test.go (in its light mode, which notes each
+// publication by uri and version without decoding the diagnostics, as the
+// time an editor's own decoder takes is not the server's), on a 5,000-line
+// notebook page:
 //
 //	go test ./server -run XXX -bench Serve -benchtime 400x
 //
@@ -61,7 +64,11 @@ func waldenBinary(b *testing.B) string {
 // serveProcess starts `walden serve` and returns an initialized client
 // and the process.
 func serveProcess(b *testing.B) (*testClient, *exec.Cmd) {
-	cmd := exec.Command(waldenBinary(b), "serve")
+	args := []string{"serve"}
+	if p := os.Getenv("WALDEN_CPUPROFILE"); p != "" {
+		args = append(args, "--cpuprofile", p)
+	}
+	cmd := exec.Command(waldenBinary(b), args...)
 	cmd.Stderr = os.Stderr
 	in, err := cmd.StdinPipe()
 	if err != nil {
@@ -75,6 +82,7 @@ func serveProcess(b *testing.B) (*testClient, *exec.Cmd) {
 		b.Fatal(err)
 	}
 	c := connect(b, out, in)
+	c.light = true
 	c.initialize(nil)
 	b.Cleanup(func() {
 		c.call("shutdown", nil, nil)

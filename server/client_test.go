@@ -10,6 +10,7 @@ import (
 	"io"
 	"log/slog"
 	"net"
+	"strconv"
 	"strings"
 	"sync"
 	"testing"
@@ -38,6 +39,11 @@ type testClient struct {
 	replies  map[string]json.RawMessage // responses to hand-written requests, by their "raw-…" id
 
 	srv *Server
+
+	// light makes the client note publishDiagnostics by uri and version
+	// only, without decoding the diagnostics, so that benchmarks time the
+	// server rather than the client's JSON decoder.
+	light bool
 }
 
 // waitTimeout bounds every wait, so a broken server fails a test instead
@@ -298,6 +304,15 @@ func (s *clientStream) Read(ctx context.Context) (jsonrpc2.Message, int64, error
 		if err != nil {
 			return nil, n, err
 		}
+		if s.c.light && bytes.HasPrefix(body, publishPrefix) {
+			if p, ok := peekPublication(body[len(publishPrefix):]); ok {
+				s.c.mu.Lock()
+				s.c.diags = append(s.c.diags, p)
+				s.c.signal()
+				s.c.mu.Unlock()
+				continue
+			}
+		}
 		if bytes.HasPrefix(body, []byte(`{"jsonrpc":"2.0","method":`)) {
 			// A notification from the server: no need to look for ids,
 			// and decoding a long page's diagnostics twice would make the
@@ -349,6 +364,35 @@ func (s *clientStream) Close() error {
 		return c.Close()
 	}
 	return nil
+}
+
+// publishPrefix starts every publishDiagnostics the server writes itself.
+var publishPrefix = []byte(`{"jsonrpc":"2.0","method":"textDocument/publishDiagnostics","params":{"uri":`)
+
+// peekPublication reads the uri and version at the start of a
+// publication's params, as the server writes them (encode.go).
+func peekPublication(rest []byte) (publishDiagnosticsParams, bool) {
+	var p publishDiagnosticsParams
+	end := bytes.Index(rest, []byte(`,"version":`))
+	if end < 0 {
+		return p, false
+	}
+	var uri string
+	if json.Unmarshal(rest[:end], &uri) != nil {
+		return p, false
+	}
+	rest = rest[end+len(`,"version":`):]
+	n := bytes.IndexByte(rest, ',')
+	if n < 0 {
+		return p, false
+	}
+	v, err := strconv.ParseInt(string(rest[:n]), 10, 32)
+	if err != nil {
+		return p, false
+	}
+	version := int32(v)
+	p.URI, p.Version = protocol.DocumentURI(uri), &version
+	return p, true
 }
 
 // rpcCode returns the JSON-RPC error code of err, or 0.

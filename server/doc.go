@@ -4,7 +4,7 @@
 //
 // The wiring follows the usual shape of a small go.lsp.dev server: a stream
 // (wire.go) feeds a jsonrpc2 connection whose handler is a middleware chain
-// (middleware.go: cancel, snapshot, async, log, recover) ending in a method
+// (middleware.go: swallow, cancel, pin, async, log, recover) ending in a method
 // table (route.go). Every document version becomes an immutable snapshot
 // (snapshot.go); the analysis of a snapshot is computed once, on demand, and
 // shared by the publisher (publish.go) and the request handlers. Each LSP

@@ -158,7 +158,7 @@ func (nb *notebook) applyCellChange(s *Server, uri protocol.DocumentURI, version
 	}
 	nd, warnings := d.edited(version, changes)
 	for _, w := range warnings {
-		s.tellLocked(protocol.MessageTypeWarning, w.Error())
+		s.tell(protocol.MessageTypeWarning, w.Error())
 	}
 	nb.docs[uri] = nd
 	return nil

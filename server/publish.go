@@ -26,6 +26,7 @@ type publisher struct {
 	running bool
 
 	shown map[protocol.DocumentURI]shown // what the client holds; only the loop touches it
+	buf   []byte                         // reused for encoding; only the loop touches it
 }
 
 // shown is what was last published for one document.
@@ -94,13 +95,13 @@ func (p *publisher) publish(snap *snapshot, reps []*analyze.Report) {
 				continue
 			}
 			v := d.version
-			p.s.notify("textDocument/publishDiagnostics", &publishDiagnosticsParams{URI: d.uri, Version: &v, Diagnostics: diags})
+			p.buf = p.s.publishDiagnostics(p.buf, &publishDiagnosticsParams{URI: d.uri, Version: &v, Diagnostics: diags})
 			p.shown[d.uri] = shown{version: d.version, diags: diags}
 		}
 	}
 	for uri := range p.shown {
 		if !keep[uri] {
-			p.s.notify("textDocument/publishDiagnostics", &publishDiagnosticsParams{URI: uri, Diagnostics: []protocol.Diagnostic{}})
+			p.buf = p.s.publishDiagnostics(p.buf, &publishDiagnosticsParams{URI: uri, Diagnostics: []protocol.Diagnostic{}})
 			delete(p.shown, uri)
 		}
 	}

@@ -77,12 +77,12 @@ func (s *Server) route(ctx context.Context, reply jsonrpc2.Replier, req jsonrpc2
 	if _, isCall := req.(*jsonrpc2.Call); isCall {
 		h, known := requests[method]
 		switch {
-		case !known:
-			return reply(ctx, nil, jsonrpc2.NewError(codeMethodNotFound, fmt.Sprintf("method %q is not implemented by walden", method)))
 		case ph == starting && method != "initialize":
 			return reply(ctx, nil, jsonrpc2.NewError(codeServerNotInitialized, fmt.Sprintf("%s before initialize", method)))
 		case ph == shuttingDown:
 			return reply(ctx, nil, jsonrpc2.NewError(codeInvalidRequest, fmt.Sprintf("%s after shutdown: only exit is accepted now", method)))
+		case !known:
+			return reply(ctx, nil, jsonrpc2.NewError(codeMethodNotFound, fmt.Sprintf("method %q is not implemented by walden", method)))
 		}
 		result, err := h(s, ctx, req.Params())
 		return reply(ctx, result, rpcError(err))

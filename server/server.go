@@ -157,6 +157,27 @@ func (s *Server) notify(method string, params any) {
 	}
 }
 
+// publishDiagnostics sends p, encoding it into buf, which it returns for
+// the caller to reuse: a long page's diagnostics are sent after every
+// edit, and a fresh buffer each time would be most of the garbage the
+// server makes.
+func (s *Server) publishDiagnostics(buf []byte, p *publishDiagnosticsParams) []byte {
+	if !plain(p) {
+		s.notify("textDocument/publishDiagnostics", p)
+		return buf
+	}
+	buf = append(buf[:0], `{"jsonrpc":"2.0","method":"textDocument/publishDiagnostics","params":`...)
+	buf = appendPublishDiagnostics(buf, p)
+	buf = append(buf, '}')
+	if _, err := s.stream.writeFrame(buf); err != nil {
+		s.log.Info("diagnostics not sent", "uri", p.URI, "err", err)
+	}
+	if cap(buf) > 16<<20 {
+		return nil // do not keep a huge buffer after one huge page
+	}
+	return buf
+}
+
 // tell shows the client a message in its log (window/logMessage), for
 // problems with notifications, which cannot be answered with an error.
 func (s *Server) tell(typ protocol.MessageType, msg string) {

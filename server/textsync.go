@@ -57,7 +57,7 @@ func (s *Server) didChange(ctx context.Context, p *didChangeTextParams) error {
 	}
 	nd, warnings := d.edited(version, p.ContentChanges)
 	for _, w := range warnings {
-		s.tellLocked(protocol.MessageTypeWarning, w.Error())
+		s.tell(protocol.MessageTypeWarning, w.Error())
 	}
 	s.texts[uri] = nd
 	if nd.kind != 0 {
@@ -119,6 +119,3 @@ func (s *Server) reanalyseAll() {
 		s.replaceUnit(key, snap.docs)
 	}
 }
-
-// tellLocked is tell for callers holding s.mu; sending does not need it.
-func (s *Server) tellLocked(typ protocol.MessageType, msg string) { s.tell(typ, msg) }

@@ -1,14 +1,21 @@
 package caution
 
-// Azide with dichloromethane or chloroform.
+// Azide with dichloromethane, chloroform or another polyhalomethane.
 //
-// Sodium azide reacts with dichloromethane to give diazidomethane (and with
-// chloroform, triazidomethane), highly explosive and easily concentrated
-// when the solvent is evaporated. Sources: Bretherick's Handbook of
-// Reactive Chemical Hazards, entries for sodium azide and dichloromethane
-// (from memory); A. B. Hassner et al., J. Org. Chem. 1990, 55, 2304, and the
-// incident report by R. E. Conrow and W. D. Dean, Org. Process Res. Dev.
-// 2008, 12, 1285 ("Diazidomethane Explosion") (from memory).
+// Azide ion displaces halide from dichloromethane to give diazidomethane
+// (and from chloroform, triazidomethane): highly explosive, and easily
+// concentrated when the solvent is evaporated. Sources: Bretherick's
+// Handbook of Reactive Chemical Hazards, entries for sodium azide and
+// dichloromethane (from memory); A. Hassner et al., J. Org. Chem. 1990,
+// 55, 2304, and the incident report by R. E. Conrow and W. D. Dean, Org.
+// Process Res. Dev. 2008, 12, 1285 ("Diazidomethane Explosion") (from
+// memory). Dibromomethane, bromoform, carbon tetrachloride and carbon
+// tetrabromide carry the same C–X bonds and are flagged the same way, as
+// a precaution by analogy (from memory; not a documented incident for each).
+//
+// Only the azide ion counts (sodium, potassium, ammonium azides, HN3):
+// organic azides and TMSN3 are used in dichloromethane routinely (common
+// practice) and do not displace its chloride.
 func init() {
 	register(Rule{
 		Code:   "caution-azide-halomethane",
@@ -20,9 +27,12 @@ func init() {
 
 func azideHalomethane(s *Step) []Caution {
 	var out []Caution
-	azides := s.each(func(x Substance) bool { return hasAzide(x.Mol) || x.named("NaN3", "sodium azide", "TMSN3") })
+	azides := s.each(func(x Substance) bool {
+		return hasAzideIon(x.Mol) || x.named("NaN3", "sodium azide", "KN3", "potassium azide", "LiN3", "lithium azide", "TBAN3", "HN3")
+	})
 	solvents := s.each(func(x Substance) bool {
-		return dihalomethane(x.Mol) || x.named("DCM", "CH2Cl2", "dichloromethane", "methylene chloride", "chloroform", "CHCl3", "CH2Br2", "dibromomethane")
+		return polyhalomethane(x.Mol) || x.named("DCM", "CH2Cl2", "dichloromethane", "methylene chloride", "chloroform", "CHCl3",
+			"CH2Br2", "dibromomethane", "bromoform", "CHBr3", "CCl4", "carbon tetrachloride", "tetrachloromethane", "CBr4", "carbon tetrabromide")
 	})
 	for _, az := range azides {
 		for _, sv := range solvents {
@@ -31,8 +41,8 @@ func azideHalomethane(s *Step) []Caution {
 			}
 			out = append(out, Caution{
 				Code: "caution-azide-halomethane",
-				Message: say("Caution: azide with "+sv.display()+" can form di- or triazidomethane, which are explosive and have detonated on concentration.",
-					"Use a solvent without CH2X2/CHX3 groups (DMF, DMSO, water, acetonitrile) and never concentrate such a mixture."),
+				Message: say("Caution: azide with "+sv.display()+" can exchange halogen for azide and form di-, tri- or tetraazidomethane, which are explosive; diazidomethane from dichloromethane has detonated on concentration.",
+					"Use a solvent without CH2X2, CHX3 or CX4 (DMF, DMSO, water, acetonitrile) and never concentrate such a mixture."),
 				Parties: []Party{sv.party(), az.party()},
 			})
 		}

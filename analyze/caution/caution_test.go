@@ -88,9 +88,18 @@ func TestCautions(t *testing.T) {
 			[]string{"caution-azide-halomethane"}},
 		{"azide in chloroform by name", stepSpec{reagents: []string{"NaN3"}, solvents: []string{"chloroform"}},
 			[]string{"caution-azide-halomethane"}},
-		// Carbon tetrachloride has no C–H and is not the documented case;
-		// the rule stays quiet (known gap rather than a claim of safety).
-		{"azide in CCl4 not flagged by this rule", stepSpec{reagents: []string{"NaN3|[N-]=[N+]=[N-]"}, solvents: []string{"CCl4|ClC(Cl)(Cl)Cl"}}, nil},
+		// The other polyhalomethanes carry the same C–X bonds: flagged by
+		// analogy (Bretherick, from memory; Conrow & Dean 2008, from memory).
+		{"azide in CCl4", stepSpec{reagents: []string{"NaN3|[Na+].[N-]=[N+]=[N-]"}, solvents: []string{"CCl4|ClC(Cl)(Cl)Cl"}}, []string{"caution-azide-halomethane"}},
+		{"azide in CBr4 by name", stepSpec{reagents: []string{"NaN3"}, solvents: []string{"CBr4"}}, []string{"caution-azide-halomethane"}},
+		{"azide in bromoform", stepSpec{reagents: []string{"NaN3|[Na+].[N-]=[N+]=[N-]"}, solvents: []string{"CHBr3|BrC(Br)Br"}}, []string{"caution-azide-halomethane"}},
+		{"azide in dibromomethane", stepSpec{reagents: []string{"x|[N-]=[N+]=[N-].[Na+]"}, solvents: []string{"y|BrCBr"}}, []string{"caution-azide-halomethane"}},
+		{"tetrabutylammonium azide in chloroform", stepSpec{reagents: []string{"x|CCCC[N+](CCCC)(CCCC)CCCC.[N-]=[N+]=[N-]"}, solvents: []string{"y|ClC(Cl)Cl"}}, []string{"caution-azide-halomethane"}},
+		// Organic azides and TMSN3 are handled in DCM routinely (common
+		// practice): no halomethane caution; one chlorine is not CH2X2.
+		{"organic azide in DCM", stepSpec{substrate: "CCCCN=[N+]=[N-]", reagents: []string{"PPh3|c1ccccc1P(c1ccccc1)c1ccccc1"}, solvents: []string{"DCM|ClCCl"}}, nil},
+		{"TMSN3 in DCM", stepSpec{reagents: []string{"TMSN3|C[Si](C)(C)N=[N+]=[N-]"}, solvents: []string{"DCM|ClCCl"}}, nil},
+		{"one chlorine: not a polyhalomethane", stepSpec{reagents: []string{"NaN3|[Na+].[N-]=[N+]=[N-]"}, solvents: []string{"MeCl|CCl"}}, nil},
 		// Sodium azide SDS: contact with acids liberates very toxic gas
 		// (common practice).
 		{"azide with HCl", stepSpec{reagents: []string{"NaN3|[Na+].[N-]=[N+]=[N-]", "HCl|Cl"}}, []string{"caution-azide-acid"}},

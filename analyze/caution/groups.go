@@ -75,10 +75,11 @@ func hasHydride(m *molecule.Molecule) bool {
 	return false
 }
 
-// dihalomethane reports CH2X2 or CHX3 (X = Cl, Br, I): dichloromethane,
-// chloroform, dibromomethane, the solvents that form explosive
-// di- and triazidomethane with azide.
-func dihalomethane(m *molecule.Molecule) bool {
+// polyhalomethane reports a one-carbon molecule with two or more of Cl,
+// Br, I and nothing else but hydrogen: CH2Cl2, CHCl3, CH2Br2, CHBr3,
+// CCl4, CBr4 and the mixed ones. Azide ion can exchange their halogens
+// for azide and give di-, tri- or tetraazidomethane.
+func polyhalomethane(m *molecule.Molecule) bool {
 	if m == nil {
 		return false
 	}
@@ -96,7 +97,43 @@ func dihalomethane(m *molecule.Molecule) bool {
 				other++
 			}
 		}
-		if x >= 2 && other == 0 && x+m.HydrogenCount(i) == 4 && x < 4 {
+		if x >= 2 && other == 0 && x+m.HydrogenCount(i) == 4 {
+			return true
+		}
+	}
+	return false
+}
+
+// hasAzideIon reports an azide group whose nitrogens are bonded to no
+// carbon and no silicon: the azide ion of NaN3, KN3 or a tetraalkyl-
+// ammonium azide, a metal azide, or HN3. Organic azides (R–N3) and
+// silyl azides (TMSN3) do not displace halide from a halomethane under
+// ordinary conditions.
+func hasAzideIon(m *molecule.Molecule) bool {
+	if m == nil {
+		return false
+	}
+	for i, a := range m.Atoms {
+		if a.Element != molecule.N || a.Charge != 1 || m.Degree(i) != 2 {
+			continue
+		}
+		ion := true
+		for _, e := range m.Edges(i) {
+			end := m.Atoms[e.Atom]
+			if end.Element != molecule.N {
+				ion = false
+				break
+			}
+			for _, f := range m.Edges(e.Atom) {
+				if f.Atom == i {
+					continue
+				}
+				if el := m.Atoms[f.Atom].Element; el == molecule.C || el == molecule.Si {
+					ion = false
+				}
+			}
+		}
+		if ion {
 			return true
 		}
 	}

@@ -23,7 +23,7 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 	strongNu := c.nu != nil && c.nu.Data.N >= 5 && c.nu.Kind != "water" && c.nu.Kind != "alcohol"
 	if s.Degree == perceive.Tertiary && strongNu && !s.Flags.Has(perceive.AlphaCarbonyl) {
 		o.Findings = append(o.Findings, Finding{Code: CodeTertiarySN2, Severity: Warning, Parties: Parties{Atoms: []int{s.Carbon}, Reactant: nuIdx, Solvent: -1},
-			Message: fmt.Sprintf("the carbon bearing the %s is tertiary: SN2 is blocked, so %s acts as a base or waits for ionisation", s.Leaving.Data.Name, c.nu.Kind)})
+			Message: fmt.Sprintf("the carbon bearing the %s is tertiary: SN2 is blocked, so %s acts as a base or waits for ionisation", s.Leaving.Data.Name, c.nu.Kind.Words())})
 	}
 	if s.Flags.Has(perceive.Bridgehead) {
 		o.Findings = append(o.Findings, Finding{Code: CodeBridgehead, Severity: Error, Parties: site, Message: "the leaving group is on a bridgehead carbon: no backside attack and no planar cation"})
@@ -36,26 +36,27 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 		o.Findings = append(o.Findings, Finding{Code: CodeHinderedBackside, Severity: Warning, Parties: site,
 			Message: fmt.Sprintf("%s carbon: SN2 here is slowed by the branching next door (neopentyl ~10^-5, isobutyl ~1/30 of ethyl)", what)})
 	}
-	if c.base != nil && frac[E2] > 0.3 && frac[SN2]+frac[E2] > 0 && (o.Mechanism == E2 || frac[E2] > 0.3) && (c.nu == nil || c.nu.Kind == c.base.Kind || c.base.PKaH > 12) {
-		bulky := ""
-		if c.base.Bulk >= reagents.Hindered {
-			bulky = "bulky "
-		}
-		o.Findings = append(o.Findings, Finding{Code: CodeBaseEliminates, Severity: Warning, Parties: Parties{Atoms: []int{s.Carbon}, Reactant: c.base.Reactant, Solvent: -1},
-			Message: fmt.Sprintf("the %sbase %s (pKaH %.1f) eliminates here: about %.0f%% alkene predicted", bulky, c.base.Kind, c.base.PKaH, 100*frac[E2]),
-			Fixes:   []Fix{{Kind: ReplaceReagent, Title: "use a weakly basic nucleophile", Names: []string{"NaN3", "NaCN", "KOAc", "NaSPh"}}, {Kind: ChangeTemp, Title: "run it cold", Names: []string{"0 °C"}}}})
-	}
-	if c.nu != nil && c.nu.Charge < 0 && c.md.Protic && o.Mechanism != SN1 && c.possible(SN2) && c.act.kind == actNone {
+	baseEliminates(o, st, c, frac)
+	// Large, polarisable anions (iodide, thiocyanate, thiolates) are
+	// the least hydrogen-bonded and gain least from a dipolar aprotic
+	// solvent (Parker, Chem. Rev. 1969, 69, 1, from memory): quoting the
+	// azide factor for them would overstate it, and thiolates in ethanol
+	// are routine (common practice). A salt that dissolves in no dipolar
+	// aprotic solvent (NaOH, KOH) has no such alternative to offer.
+	// A step predicted to eliminate is left alone: a dipolar aprotic
+	// solvent frees the anion as a base as much as a nucleophile (Parker
+	// 1969), so it would not turn an E2 into an SN2.
+	if c.nu != nil && c.nu.Charge < 0 && c.md.Protic && o.Mechanism != SN1 && o.Mechanism != E2 && c.possible(SN2) && c.act.kind == actNone && !littleSolvated[c.nu.Kind] && dissolvesAprotic(st, c.nu) {
 		best := bestAprotic()
 		factor := math.Pow(10, best.Anion-c.md.Anion)
 		idx := proticIndex(st)
 		o.Findings = append(o.Findings, Finding{Code: CodeProticSlows, Severity: Warning, Parties: Parties{Atoms: []int{s.Carbon}, Reactant: nuIdx, Solvent: idx},
-			Message: fmt.Sprintf("%s hydrogen-bonds the anionic %s and slows SN2: about %s times faster in %s (Parker 1969; azide + 1-bromobutane series)", c.md.Name, c.nu.Kind, roundFactor(factor), best.Names[0]),
+			Message: fmt.Sprintf("%s hydrogen-bonds the anionic %s and slows SN2: about %s times faster in %s (Parker 1969; azide + 1-bromobutane series)", c.md.Name, c.nu.Kind.Words(), roundFactor(factor), best.Names[0]),
 			Fixes:   []Fix{{Kind: ReplaceSolvent, Title: "use a dipolar aprotic solvent", Names: []string{"DMF", "DMSO", "acetonitrile", "acetone"}}}})
 	}
 	if c.nu != nil && c.nu.Data.N < 3 && o.Mechanism != SN1 && c.possible(SN2) {
 		o.Findings = append(o.Findings, Finding{Code: CodeWeakNucleophile, Severity: Info, Parties: Parties{Atoms: []int{s.Carbon}, Reactant: nuIdx, Solvent: -1},
-			Message: fmt.Sprintf("%s is a weak nucleophile (Pearson n %.1f): substitution is slow", c.nu.Kind, c.nu.Data.N)})
+			Message: fmt.Sprintf("%s is a weak nucleophile (Pearson n %.1f): substitution is slow", c.nu.Kind.Words(), c.nu.Data.N)})
 	}
 	if frac[SN1] > 0.2 && perceive.TetrahedralAt(st.Substrate, s.Carbon) >= 0 {
 		o.Findings = append(o.Findings, Finding{Code: CodeRacemises, Severity: Warning, Parties: site, Message: "ionisation gives a planar carbocation: the configuration at this carbon is lost (racemic product)"})
@@ -65,9 +66,9 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 			Message: fmt.Sprintf("the carbocation rearranges by a 1,2-%s shift to a more stable %s cation: the product is rearranged", c.cation.shift, c.cation.kind),
 			Fixes:   []Fix{{Kind: InsertStep, Title: "avoid the cation: make the sulfonate and displace it by SN2", Names: []string{"MsCl", "Et3N"}, Config: "retains"}}})
 	}
-	if c.nu != nil && c.nu.OverAlkylate && o.Mechanism == SN2 {
+	if c.nu != nil && c.nu.OverAlkylate && o.Mechanism == SN2 && overAlkylates(c) {
 		o.Findings = append(o.Findings, Finding{Code: CodeOverAlkylation, Severity: Warning, Parties: Parties{Reactant: nuIdx, Solvent: -1},
-			Message: "the amine product is as nucleophilic as the starting amine and can be alkylated again: expect over-alkylation unless the amine is in large excess"})
+			Message: overAlkylationMessage(c)})
 	}
 	if c.nu != nil && len(c.nu.Alternatives) > 0 && c.nuMol != nil && distinctSites(c) > 0 {
 		o.Findings = append(o.Findings, Finding{Code: CodeNucleophileSites, Severity: Warning, Parties: Parties{Reactant: nuIdx, Solvent: -1},
@@ -76,15 +77,7 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 	if c.nu != nil && c.nu.Ambident != "" {
 		o.Findings = append(o.Findings, Finding{Code: CodeAmbident, Severity: Info, Parties: Parties{Reactant: nuIdx, Solvent: -1}, Message: c.nu.Ambident})
 	}
-	if len(rg.Ionic) > 0 && !rg.Crown && c.md.Class == "nonpolar" {
-		solvent := -1
-		if len(st.Solvents) > 0 {
-			solvent = 0
-		}
-		o.Findings = append(o.Findings, Finding{Code: CodeInsoluble, Severity: Warning, Parties: Parties{Reactant: rg.Ionic[0], Solvent: solvent},
-			Message: fmt.Sprintf("the salt will hardly dissolve in %s", c.md.Name),
-			Fixes:   []Fix{{Kind: ReplaceSolvent, Title: "use a polar aprotic solvent", Names: []string{"DMF", "DMSO", "acetonitrile"}}, {Kind: ReplaceReagent, Title: "add a phase-transfer catalyst or crown ether", Names: []string{"18-crown-6", "TBAB"}}}})
-	}
+	insoluble(o, st, c, rg)
 	if o.Mechanism == None {
 		o.Findings = append(o.Findings, Finding{Code: CodeNoReaction, Severity: Warning, Parties: site, Message: "no pathway is fast enough under these conditions: no reaction expected"})
 	} else if best := bestScore(o); best < w("reaction-threshold")+1.5 {
@@ -152,4 +145,43 @@ func proticIndex(st Step) int {
 		}
 	}
 	return -1
+}
+
+// littleSolvated lists the anions whose SN2 rate a protic solvent slows
+// least (Parker 1969, from memory).
+var littleSolvated = map[perceive.NucKind]bool{"iodide": true, "thiocyanate": true, "thiophenoxide": true, "thiolate": true, "hydrosulfide": true}
+
+// dissolvesAprotic reports whether the nucleophile's reagent can be used
+// in DMF at all, by the dictionary's solubility hints (true when unknown).
+func dissolvesAprotic(st Step, nu *perceive.Nucleophile) bool {
+	if nu.Reactant < 0 || nu.Reactant >= len(st.Reagents) || st.Reagents[nu.Reactant].Entry == nil {
+		return true
+	}
+	e, ok := reagents.Lookup("DMF")
+	if !ok || e.Solvent == nil {
+		return true
+	}
+	return st.Reagents[nu.Reactant].Entry.DissolvesIn(e.Solvent) != reagents.DissolvesPoorly
+}
+
+// overAlkylates says whether the amine's product will compete: primary
+// amines and ammonia give secondary amines that are at least as
+// nucleophilic (common practice; March's Advanced Organic Chemistry,
+// amine alkylation, from memory). A secondary amine gives a tertiary
+// amine that is quaternised only by reactive electrophiles (methyl,
+// allylic, benzylic); with other carbons the tertiary amine is the usual
+// clean product (common practice).
+func overAlkylates(c *scoring) bool {
+	if c.nu.Kind != "amine-secondary" {
+		return true
+	}
+	s := c.site
+	return s.Degree == perceive.Methyl || s.Flags.Has(perceive.Allylic) || s.Flags.Has(perceive.Benzylic)
+}
+
+func overAlkylationMessage(c *scoring) string {
+	if c.nu.Kind == "amine-secondary" {
+		return "the tertiary amine formed reacts again with so reactive an electrophile: expect some quaternary ammonium salt unless the amine is in excess and the electrophile added slowly"
+	}
+	return "the amine product is as nucleophilic as the starting amine and can be alkylated again: expect over-alkylation unless the amine is in large excess"
 }

@@ -137,6 +137,10 @@ type StereoChange struct {
 	Before, After string // CIP letters; "" when none
 	Change        Change
 	LetterChanged bool
+	// Why says in a few words why a lost centre is lost ("the carbon
+	// becomes part of the double bond", "racemised through the planar
+	// carbocation"); "" for inverted and retained centres.
+	Why string
 }
 
 // Score is one pathway's log10 score.

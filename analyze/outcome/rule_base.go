@@ -51,6 +51,6 @@ var baseStrengthRule = Rule{
 			v += w("soft-base")
 		}
 		c.add(E2, v)
-		c.say("base %s (pKaH %.1f) with %d removable β-hydrogen(s), best alkene %d-substituted%s: E2 term %+.1f", c.base.Kind, c.base.PKaH, nH, int(best), map[bool]string{true: ", conjugated", false: ""}[conj], v)
+		c.say("base %s (pKaH %.1f) with %d removable β-hydrogen(s), best alkene %d-substituted%s: E2 term %+.1f", c.base.Kind.Words(), c.base.PKaH, nH, int(best), map[bool]string{true: ", conjugated", false: ""}[conj], v)
 	},
 }

@@ -16,7 +16,7 @@ var nucleophilicityRule = Rule{
 		}
 		n := c.nu.Data.N
 		c.add(SN2, n)
-		c.say("nucleophile %s: n = %.2f (Pearson n(CH3I), methanol = 0)", c.nu.Kind, n)
+		c.say("nucleophile %s: n = %.2f (Pearson n(CH3I), methanol = 0)", c.nu.Kind.Words(), n)
 		if c.nu.Kind == "water" || c.nu.Kind == "alcohol" {
 			c.add(SN2, w("solvent-mass-action"))
 			c.say("the solvent is the nucleophile and is present in large excess (%+.1f)", w("solvent-mass-action"))

@@ -40,6 +40,9 @@ func stereo(o *Outcome, sub *molecule.Molecule, c *scoring) {
 		ch.After = label(mp.Mol, shifted(sub, c, c.site.Carbon))
 	}
 	ch.LetterChanged = ch.Before != "" && ch.After != "" && ch.Before != ch.After
+	if ch.Change == Lost {
+		ch.Why = lostWhy(mp, c)
+	}
 	o.Stereo = append(o.Stereo, ch)
 }
 
@@ -53,4 +56,20 @@ func shifted(sub *molecule.Molecule, c *scoring, a int) int {
 		}
 	}
 	return n
+}
+
+// lostWhy says why the configuration at the reacting carbon is lost in
+// the major product, so that no wording of a lost centre has to guess.
+func lostWhy(mp *Product, c *scoring) string {
+	switch {
+	case mp == nil:
+		return "no product is predicted"
+	case mp.Pathway == E2 || mp.Pathway == E1:
+		return "the carbon becomes part of the double bond"
+	case mp.Pathway == SN1:
+		return "racemised through the planar carbocation"
+	case degenerate(c):
+		return "racemised: the halide displaces the same halide again and again"
+	}
+	return "the configuration is not kept"
 }
