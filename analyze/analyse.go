@@ -135,6 +135,17 @@ func labelList(l map[int]string) string {
 // applyDefaults fills the solvent and temperature a step does not give,
 // from the Config, and says so once.
 func (e *Engine) applyDefaults(in *stepInput) {
+	if len(in.solvents) == 0 {
+		// "RBr + EtOH, reflux" is a solvolysis in ethanol: a reagent that
+		// is also a solvent, in a line naming no other, is the medium
+		// (common practice) rather than a guess at the default solvent.
+		for _, r := range in.reagents {
+			if r.solvent != nil {
+				in.solvents = append(in.solvents, r)
+				break
+			}
+		}
+	}
 	if len(in.solvents) == 0 && e.cfg.DefaultSolvent != "" {
 		if sv := e.dict.asSolvent(e.cfg.DefaultSolvent); sv != nil {
 			in.solvents = append(in.solvents, &substance{text: e.cfg.DefaultSolvent, solvent: sv, span: source.Span{Start: in.parsed.Span.End, End: in.parsed.Span.End}})

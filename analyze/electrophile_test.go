@@ -62,3 +62,20 @@ func TestCautionNamesLabel(t *testing.T) {
 	}
 	t.Errorf("no alkylating-agent caution: %v", rep.Diagnostics)
 }
+
+// TestReagentAsSolvent: "tBuBr + H2O" names no solvent, but the water is
+// the medium: tert-butyl bromide hydrolyses by SN1 to tert-butanol with
+// some isobutene (Hughes & Ingold, J. Chem. Soc. 1935, 244; common
+// practice), not as a salt-free SN2 in the default DMF.
+func TestReagentAsSolvent(t *testing.T) {
+	rep := analyse(t, NewEngine(Config{DefaultSolvent: "DMF"}), Source{Name: "w.steps", Kind: PlanFile, Text: []byte("CC(C)(C)Br + H2O\n")})[0]
+	p := rep.Steps[0].Prediction
+	if p == nil || p.Mechanism != "SN1" || len(p.Products) == 0 || p.Products[0].SMILES != canon(t, "CC(C)(C)O") {
+		t.Fatalf("prediction %+v, want SN1 to tert-butanol", p)
+	}
+	for _, d := range rep.Diagnostics {
+		if d.Code == "no-solvent" || d.Code == CodeDefaultSolvent {
+			t.Errorf("no-solvent reported although water is the medium: %s", d.Message)
+		}
+	}
+}

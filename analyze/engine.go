@@ -4,6 +4,7 @@ import (
 	"cmp"
 	"context"
 	"fmt"
+	"runtime"
 	"slices"
 	"sort"
 	"strings"
@@ -49,6 +50,7 @@ type lineEntry struct {
 	// pointers, and no key needs building.
 	lastIns []*handOn
 	lastRes *stepResult
+	queued  bool // taken by a prewarm worker
 }
 
 // maxCachedLines bounds the cache; past it, lines not used by the latest
@@ -108,6 +110,7 @@ func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) 
 		ents[i] = make([]*lineEntry, len(found[i]))
 	}
 	gen := e.entries(srcs, found, ents)
+	e.prewarm(ctx, ents)
 	nLabels := 0
 	for i := range srcs {
 		for _, ent := range ents[i] {
@@ -195,6 +198,67 @@ func byStart(a, b Diagnostic) int { return cmp.Compare(a.Span.Start, b.Span.Star
 // undefinedRef stands for a label no step before has defined, among the
 // products a line refers to.
 var undefinedRef = new(handOn)
+
+// prewarm analyses, on every core, the lines not yet analysed that refer
+// to no label: their results depend on nothing else on the page. Opening a
+// long page is thus not bound to one core; an edit has a line or two to
+// analyse and skips this.
+func (e *Engine) prewarm(ctx context.Context, ents [][]*lineEntry) {
+	workers := runtime.GOMAXPROCS(0)
+	if workers < 2 {
+		return
+	}
+	var todo []*lineEntry
+	e.mu.Lock()
+	for _, es := range ents {
+		for _, ent := range es {
+			if len(ent.refs) == 0 && ent.results[""] == nil && !ent.queued {
+				ent.queued = true // an entry appears once however often its text does
+				todo = append(todo, ent)
+			}
+		}
+	}
+	e.mu.Unlock()
+	if len(todo) < prewarmMin {
+		e.mu.Lock()
+		for _, ent := range todo {
+			ent.queued = false
+		}
+		e.mu.Unlock()
+		return
+	}
+	var next atomic.Int64
+	var wg sync.WaitGroup
+	for range min(workers, len(todo)/prewarmMin+1) {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for {
+				k := int(next.Add(1)) - 1
+				if k >= len(todo) || ctx.Err() != nil {
+					return
+				}
+				ent := todo[k]
+				res := e.analyseSafely(ent, nil)
+				e.mu.Lock()
+				if ent.results[""] == nil {
+					ent.results[""] = res
+				}
+				ent.queued = false
+				e.mu.Unlock()
+			}
+		}()
+	}
+	wg.Wait()
+	e.mu.Lock()
+	for _, ent := range todo { // those left by a cancellation
+		ent.queued = false
+	}
+	e.mu.Unlock()
+}
+
+// prewarmMin is the fewest lines worth spreading over the cores.
+const prewarmMin = 32
 
 // entries fills ents with the cached parse of every found line, parsing
 // only the lines not seen before, and returns the generation of this

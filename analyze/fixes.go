@@ -57,6 +57,11 @@ func activationEdits(in *stepInput, reagents string) []Edit {
 	if in.parsed.Label != nil {
 		label = in.parsed.Label.Name + "-act"
 	}
+	if !strings.Contains(reagents, ",") {
+		// Sulfonylation is run in dichloromethane from 0 °C (common
+		// practice); a line without them would only draw "no solvent".
+		reagents += ", DCM, 0 °C"
+	}
 	line := fmt.Sprintf("%s: %s + %s\n", label, s.text, reagents)
 	if s.ref != "" {
 		line = fmt.Sprintf("%s: @%s + %s\n", label, s.ref, reagents)

@@ -53,7 +53,7 @@ func Predict(st Step) (o Outcome) {
 	}
 	sites := usableSites(sub, act)
 	if len(sites) == 0 {
-		return noSite(o, sub)
+		return noSite(o, sub, rg)
 	}
 	site := sites[0]
 	o.Site = site.Carbon
@@ -161,7 +161,11 @@ func usableSites(sub *perceive.Substrate, act activation) []perceive.Site {
 }
 
 // noSite explains why nothing can react.
-func noSite(o Outcome, sub *perceive.Substrate) Outcome {
+func noSite(o Outcome, sub *perceive.Substrate, rg perceive.Reagents) Outcome {
+	if why := acylOnly(sub, rg); why != "" {
+		o.NotAnalysed = why
+		return o
+	}
 	for _, s := range sub.Sites {
 		switch {
 		case s.Flags.Has(perceive.Aryl) || s.Flags.Has(perceive.Vinylic):
@@ -188,6 +192,7 @@ func poorLeaving(s perceive.Site) Finding {
 		Message: fmt.Sprintf("%s does not leave under these conditions (conjugate acid pKa %.1f)", s.Leaving.Data.Name, s.Leaving.Data.PKaH),
 		Parties: Parties{Atoms: []int{s.Carbon, s.Leaving.Attach}, Reactant: -1, Solvent: -1}}
 	if s.Leaving.Kind == perceive.Hydroxyl {
+		f.Message = fmt.Sprintf("the OH does not leave under these conditions (hydroxide: conjugate acid pKa %.1f); activate it first: a tosylate or mesylate keeps the configuration, Mitsunobu or Appel conditions invert it", s.Leaving.Data.PKaH)
 		f.Fixes = []Fix{
 			{Kind: InsertStep, Title: "make the tosylate first (keeps the configuration)", Names: []string{"TsCl", "pyridine"}, Config: "retains"},
 			{Kind: InsertStep, Title: "make the mesylate first (keeps the configuration)", Names: []string{"MsCl", "Et3N"}, Config: "retains"},
@@ -267,4 +272,36 @@ func hasHydroxyl(sub *perceive.Substrate) bool {
 		}
 	}
 	return false
+}
+
+// acylOnly explains a step whose only leaving group is an ester's alkyl
+// oxygen and whose reagent attacks carbonyls (hydroxide, alkoxides,
+// amines): saponification, transesterification and aminolysis happen at
+// the carbonyl carbon by addition–elimination, not at
+// the sp3 carbon (common practice; March's Advanced Organic Chemistry,
+// acyl substitution, from memory). walden's rules do not cover them, so
+// the step is "not analysed" rather than an error about a leaving group.
+func acylOnly(sub *perceive.Substrate, rg perceive.Reagents) string {
+	if len(sub.Sites) == 0 {
+		return ""
+	}
+	for _, s := range sub.Sites {
+		if s.Leaving.Kind != perceive.Carboxylate {
+			return ""
+		}
+	}
+	kinds := []perceive.NucKind{}
+	if rg.Nucleophile != nil {
+		kinds = append(kinds, rg.Nucleophile.Kind)
+	}
+	if rg.Base != nil {
+		kinds = append(kinds, rg.Base.Kind)
+	}
+	for _, k := range kinds {
+		switch k {
+		case "hydroxide", "alkoxide", "alkoxide-secondary", "alkoxide-tertiary", "ammonia", "amine-primary", "amine-secondary", "hydrazine":
+			return "the ester reacts at its carbonyl carbon (hydrolysis, transesterification or aminolysis: acyl substitution), which walden's rules for substitution at sp3 carbon do not cover"
+		}
+	}
+	return ""
 }

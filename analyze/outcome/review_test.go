@@ -77,3 +77,32 @@ func TestBaseEliminatesWords(t *testing.T) {
 	}
 	t.Errorf("no base-eliminates finding: %v", findingCodes(o))
 }
+
+// TestEsterAtCarbonyl: hydroxide, alkoxides and amines attack an ester at
+// its carbonyl carbon (saponification, transesterification, aminolysis:
+// common practice; March's Advanced Organic Chemistry, acyl substitution,
+// from memory). The step is outside the rules, so it is not analysed,
+// and no poor-leaving-group error is raised on a routine step; with
+// iodide, which does not attack the carbonyl, the error stays.
+func TestEsterAtCarbonyl(t *testing.T) {
+	tests := []struct {
+		reagent, solvent string
+		notAnalysed      bool
+	}{
+		{"NaOH", "methanol", true},
+		{"NaOMe", "methanol", true},
+		{"CCN", "ethanol", true},
+		{"NaI", "acetone", false},
+	}
+	for _, tc := range tests {
+		st := Step{Substrate: mustParse(t, "CCOC(=O)c1ccccc1"), Solvents: solventsFor(t, tc.solvent), Reagents: []Reactant{reactantFor(t, tc.reagent)}}
+		o := Predict(st)
+		poor := false
+		for _, f := range o.Findings {
+			poor = poor || f.Code == CodePoorLeaving
+		}
+		if (o.NotAnalysed != "") != tc.notAnalysed || poor == tc.notAnalysed {
+			t.Errorf("ethyl benzoate + %s: not analysed %q, poor-leaving-group %v; want not analysed %v", tc.reagent, o.NotAnalysed, poor, tc.notAnalysed)
+		}
+	}
+}

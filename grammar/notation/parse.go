@@ -38,10 +38,18 @@ type parser struct {
 	arrow0 *Arrow
 
 	// batch is set by ParseLines: slabs are large and shared by lines.
-	batch    bool
-	stepSlab []stepNodes
-	qptr     []*Quantity // backing of the terms' Quantities lists
-	ptrSlab  []*Term
+	// There a step's optional nodes come from slabs of their own, only
+	// for the lines that have them: most lines have no mark, label or
+	// comment, and setting room aside for them in every step would make
+	// a page's tree bigger by a tenth.
+	batch       bool
+	stepSlab    []Step
+	markSlab    []Mark
+	labelSlab   []Label
+	arrowSlab   []Arrow
+	commentSlab []Comment
+	qptr        []*Quantity // backing of the terms' Quantities lists
+	ptrSlab     []*Term
 }
 
 const (
@@ -178,6 +186,40 @@ func ParseLines(text []byte, spans []source.Span) ([]*Step, []source.ErrorList) 
 	return steps, errs
 }
 
+// slabNode returns one zero node carved from *slab, starting a new slab
+// of batchSlab nodes when it is full.
+func slabNode[T any](slab *[]T) []T {
+	if len(*slab) == cap(*slab) {
+		*slab = make([]T, 0, batchSlab)
+	}
+	n := len(*slab)
+	*slab = (*slab)[:n+1]
+	return (*slab)[n : n+1 : n+1]
+}
+
+// markNode, labelNode and arrowNode return the node for the step being
+// parsed: allocated with it by Parse, carved on first use by ParseLines.
+func (p *parser) markNode() *Mark {
+	if p.mark0 == nil {
+		p.mark0 = &slabNode(&p.markSlab)[0]
+	}
+	return p.mark0
+}
+
+func (p *parser) labelNode() *Label {
+	if p.label0 == nil {
+		p.label0 = &slabNode(&p.labelSlab)[0]
+	}
+	return p.label0
+}
+
+func (p *parser) arrowNode() *Arrow {
+	if p.arrow0 == nil {
+		p.arrow0 = &slabNode(&p.arrowSlab)[0]
+	}
+	return p.arrow0
+}
+
 // stepNodes holds a step and its single nodes, allocated together.
 type stepNodes struct {
 	st      Step
@@ -190,18 +232,16 @@ type stepNodes struct {
 // parse reads p.src.
 func (p *parser) parse() (*Step, source.ErrorList) {
 	line := p.src
-	var one *stepNodes
+	var st *Step
+	var comment *Comment
 	if p.batch {
-		if len(p.stepSlab) == cap(p.stepSlab) {
-			p.stepSlab = make([]stepNodes, 0, batchSlab)
-		}
-		p.stepSlab = p.stepSlab[:len(p.stepSlab)+1]
-		one = &p.stepSlab[len(p.stepSlab)-1]
+		st = &slabNode(&p.stepSlab)[0]
+		p.mark0, p.label0, p.arrow0 = nil, nil, nil
 	} else {
-		one = new(stepNodes)
+		one := new(stepNodes)
+		p.mark0, p.label0, p.arrow0 = &one.mark, &one.label, &one.arrow
+		st, comment = &one.st, &one.comment
 	}
-	p.mark0, p.label0, p.arrow0 = &one.mark, &one.label, &one.arrow
-	st := &one.st
 	st.Span = p.span(0, len(line))
 	if len(line) > MaxLineLength {
 		p.errorf(0, len(line), "line-too-long",
@@ -212,8 +252,11 @@ func (p *parser) parse() (*Step, source.ErrorList) {
 	p.checkBytes()
 	end := len(line)
 	if c := p.commentStart(); c >= 0 {
-		one.comment = Comment{Span: p.span(c, end), Text: strings.TrimSpace(p.str[c+2 : end])}
-		st.Comment = &one.comment
+		if comment == nil {
+			comment = &slabNode(&p.commentSlab)[0]
+		}
+		*comment = Comment{Span: p.span(c, end), Text: strings.TrimSpace(p.str[c+2 : end])}
+		st.Comment = comment
 		end = c
 	}
 	i := p.skipSpace(0, end)
@@ -311,7 +354,7 @@ func (p *parser) mark(st *Step, i, end int) int {
 	default:
 		return i
 	}
-	st.Mark = p.mark0
+	st.Mark = p.markNode()
 	*st.Mark = Mark{Span: p.span(i, i+3), State: state}
 	if i+3 < end && p.spaceAt(i+3, end) == 0 {
 		p.errorf(i, i+3, "mark-space", "status mark %s is followed by %s; put a space after the mark",
@@ -339,7 +382,7 @@ func (p *parser) label(st *Step, toks []tok) []tok {
 	}
 	if p.numbered(toks) {
 		t := toks[0]
-		st.Label = p.label0
+		st.Label = p.labelNode()
 		*st.Label = Label{Span: p.span(t.start, t.end), Name: p.str[t.start : t.end-1], NameSpan: p.span(t.start, t.end-1)}
 		if len(toks) == 1 {
 			p.errorf(t.start, t.end, "missing-substrate", "step number %s with no step after it; write the substrate after it", quote(p.text(t)))
@@ -351,7 +394,7 @@ func (p *parser) label(st *Step, toks []tok) []tok {
 	}
 	t := toks[0]
 	name := p.str[t.start : t.end-1]
-	st.Label = p.label0
+	st.Label = p.labelNode()
 	*st.Label = Label{Span: p.span(t.start, t.end), Name: name, NameSpan: p.span(t.start, t.end-1)}
 	switch {
 	case name == "":
@@ -472,7 +515,7 @@ func (p *parser) terms(st *Step, toks []tok) {
 					p.errorf(seg.sep.start, seg.sep.end, "second-arrow",
 						"second arrow in one step; a step has one '->' before its expected products: split the line into two steps")
 				} else {
-					st.Arrow = p.arrow0
+					st.Arrow = p.arrowNode()
 					*st.Arrow = Arrow{Span: p.span(seg.sep.start, seg.sep.end)}
 				}
 				ph = inProducts
