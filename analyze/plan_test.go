@@ -62,7 +62,7 @@ func TestPlanTracksConfiguration(t *testing.T) {
 	}
 	// The hover of the second step says so in words.
 	md, _, _ := rep.Hover(rep.Steps[1].Span.Start)
-	if !strings.Contains(md, "tos retained (S) → az inverted (R)") || !strings.Contains(md, "the letter changes") {
+	if !strings.Contains(md, "tos retained (S) → az inverted (R)") || !strings.Contains(md, "inverted (the CIP letter changes)") {
 		t.Errorf("hover lacks the configuration through the plan:\n%s", md)
 	}
 	if !strings.HasSuffix(rep.Steps[1].Inlay, "(2S→2R, inverted)") {
