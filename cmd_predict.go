@@ -7,6 +7,7 @@ import (
 	"flag"
 	"fmt"
 	"io"
+	"math"
 	"os"
 	"strings"
 
@@ -83,6 +84,10 @@ func runPredict(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		}
 	case *file == "" && fl.NArg() > 0:
 		text = []byte(strings.Join(fl.Args(), " "))
+		if strings.TrimSpace(string(text)) == "" {
+			fmt.Fprintln(stderr, "walden predict: the step line is empty")
+			return exitUsage
+		}
 		if strings.ContainsAny(string(text), "\r\n") {
 			fmt.Fprintln(stderr, "walden predict: give one line; use --file for several")
 			return exitUsage
@@ -136,7 +141,9 @@ func predictObject(line string, st analyze.StepReport, diags []analyze.Diagnosti
 			if x.Major {
 				role = "major"
 			}
-			o.Products = append(o.Products, predictProduct{x.SMILES, x.Fraction, role})
+			// Four decimals: the shares come from rounded scores, and
+			// 0.9999999972 would only suggest a precision they lack.
+			o.Products = append(o.Products, predictProduct{x.SMILES, math.Round(x.Fraction*1e4) / 1e4, role})
 		}
 		for _, c := range p.Stereo {
 			o.Stereo = append(o.Stereo, predictStereo{c.Atom + 1, c.Before, c.After, c.Outcome, c.LetterChanged})

@@ -124,3 +124,86 @@ func TestPredictLostCentreWords(t *testing.T) {
 		t.Errorf("stereo %+v, want atom 2 S → \"\" lost, letter_changed false", s)
 	}
 }
+
+// TestPredictJSONInterface holds every kind of step to the interface
+// DESIGN.md fixes ("Interfaces that outside checks rely on"): mechanism
+// one of SN2, SN1, E2, E1, none; products a list of {smiles, fraction,
+// role} with role major or minor and one major; diagnostics {code,
+// severity, message, range}; stereo entries with before, after and
+// outcome inverted, retained or lost. The expected mechanisms are the
+// textbook ones (Solomons & Fryhle ch. 6; sulfonylation keeps the C–O
+// bond: Tipson J. Org. Chem. 1944, 9, 235, from memory).
+func TestPredictJSONInterface(t *testing.T) {
+	tests := []struct{ line, mechanism, outcome string }{
+		{"C[C@H](Br)CC + NaN3, DMF", "SN2", "inverted"},
+		{"C[C@H](Br)CC + KOtBu, tBuOH", "E2", "lost"},
+		{"CC[C@@](C)(Br)c1ccccc1 + H2O, EtOH, reflux", "SN1", "lost"},
+		{"C[C@H](O)CC + TsCl + pyridine, DCM", "none", "retained"},
+		{"C[C@H](O)CC + NaN3, DMF", "none", ""},
+		{"CC(( + NaN3, DMF", "none", ""},
+	}
+	for _, tc := range tests {
+		out, _, _ := runCmd("predict", "--json", tc.line)
+		var obj map[string]json.RawMessage
+		if err := json.Unmarshal([]byte(out), &obj); err != nil {
+			t.Fatalf("%s: %v\n%s", tc.line, err, out)
+		}
+		for _, k := range []string{"mechanism", "products", "diagnostics", "stereo"} {
+			if v, ok := obj[k]; !ok || string(v) == "null" {
+				t.Errorf("%s: field %s missing or null", tc.line, k)
+			}
+		}
+		var got struct {
+			Mechanism string `json:"mechanism"`
+			Products  []map[string]any
+			Diags     []map[string]any `json:"diagnostics"`
+			Stereo    []map[string]any
+		}
+		json.Unmarshal([]byte(out), &got)
+		if got.Mechanism != tc.mechanism {
+			t.Errorf("%s: mechanism %q, want %q", tc.line, got.Mechanism, tc.mechanism)
+		}
+		majors := 0
+		for _, p := range got.Products {
+			if len(p) != 3 || p["smiles"] == "" {
+				t.Errorf("%s: product %v, want exactly smiles, fraction, role", tc.line, p)
+			}
+			f, _ := p["fraction"].(float64)
+			if f <= 0 || f > 1 {
+				t.Errorf("%s: fraction %v", tc.line, p["fraction"])
+			}
+			switch p["role"] {
+			case "major":
+				majors++
+			case "minor":
+			default:
+				t.Errorf("%s: role %v", tc.line, p["role"])
+			}
+		}
+		if len(got.Products) > 0 && majors != 1 {
+			t.Errorf("%s: %d major products", tc.line, majors)
+		}
+		for _, d := range got.Diags {
+			for _, k := range []string{"code", "severity", "message", "range"} {
+				if _, ok := d[k]; !ok {
+					t.Errorf("%s: diagnostic without %s", tc.line, k)
+				}
+			}
+		}
+		if tc.outcome == "" {
+			if len(got.Stereo) != 0 {
+				t.Errorf("%s: stereo %v, want none", tc.line, got.Stereo)
+			}
+			continue
+		}
+		if len(got.Stereo) != 1 || got.Stereo[0]["outcome"] != tc.outcome {
+			t.Errorf("%s: stereo %v, want one centre %s", tc.line, got.Stereo, tc.outcome)
+			continue
+		}
+		for _, k := range []string{"before", "after", "outcome"} {
+			if _, ok := got.Stereo[0][k]; !ok {
+				t.Errorf("%s: stereo without %s", tc.line, k)
+			}
+		}
+	}
+}

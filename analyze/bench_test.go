@@ -135,3 +135,15 @@ func BenchmarkEditOneLineNew(b *testing.B) {
 		e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: pages[i%len(pages)]}})
 	}
 }
+
+// BenchmarkOpen5k analyses a 5,000-step page with an empty cache, as on
+// opening a document: the time to the first diagnostics.
+func BenchmarkOpen5k(b *testing.B) {
+	src := []Source{{Name: "bench.md", Kind: MarkdownPage, Text: benchNotebook(5_000)}}
+	b.ReportAllocs()
+	b.ResetTimer()
+	defer reportCPU(b, cpuTime())
+	for range b.N {
+		NewEngine(Config{}).Analyze(context.Background(), src)
+	}
+}

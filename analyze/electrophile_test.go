@@ -79,3 +79,25 @@ func TestReagentAsSolvent(t *testing.T) {
 		}
 	}
 }
+
+// TestNotebookLabelsMitsunobuAndEther: the same two steps in notebook
+// cells, the alcohol and the acid defined in an earlier cell. Mitsunobu
+// with benzoic acid gives the (R) benzoate with inversion (Mitsunobu,
+// Synthesis 1981, 1, from memory; letters RDKit 2022.09), and NaH + MeI
+// on the alcohol gives the methyl ether with the carbinol carbon
+// untouched (Williamson, common practice).
+func TestNotebookLabelsMitsunobuAndEther(t *testing.T) {
+	cell1 := Source{Name: "nb.ipynb", Kind: MarkdownCell, Text: []byte("```reaction\nalc: C[C@H](O)CCc1ccccc1\nacid: OC(=O)c1ccccc1\n```\n")}
+	cell2 := Source{Name: "nb.ipynb", Kind: MarkdownCell, Text: []byte("```reaction\n@alc + PPh3 + DIAD + @acid, THF, 0 °C\n@alc + NaH + CI, THF\n```\n")}
+	reps := analyse(t, NewEngine(Config{}), cell1, cell2)
+	want := []string{"C[C@H](CCc1ccccc1)OC(=O)c1ccccc1", "CO[C@@H](C)CCc1ccccc1"}
+	if len(reps[1].Steps) != 2 {
+		t.Fatalf("%d steps in cell 2", len(reps[1].Steps))
+	}
+	for i, w := range want {
+		p := reps[1].Steps[i].Prediction
+		if p == nil || len(p.Products) == 0 || p.Products[0].SMILES != canon(t, w) {
+			t.Errorf("step %d: prediction %+v, want %s", i+1, p, w)
+		}
+	}
+}

@@ -33,6 +33,7 @@ type Engine struct {
 
 	analysed atomic.Int64 // steps analysed (cache misses), for tests and figures
 	diagHint atomic.Int64 // diagnostics in the last one-source Report, to size the next
+	parsed   atomic.Int64 // lines parsed (texts not seen before), for tests
 }
 
 // lineEntry is everything cached for one line text: its parse and one
@@ -97,8 +98,6 @@ func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) 
 	for i, s := range srcs {
 		reps[i] = &Report{Name: s.Name, dict: e.dict}
 	}
-	// Every label of every source, so that a reference to a label defined
-	// further down is told apart from one defined nowhere.
 	found := make([][]foundLine, len(srcs))
 	finds := make([][]Diagnostic, len(srcs))
 	ents := make([][]*lineEntry, len(srcs))
@@ -119,6 +118,8 @@ func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) 
 			}
 		}
 	}
+	// Every label of every source, so that a reference to a label defined
+	// further down is told apart from one defined nowhere.
 	later := make(map[string]bool, nLabels)
 	for i := range srcs {
 		for _, ent := range ents[i] {
@@ -212,7 +213,9 @@ func (e *Engine) prewarm(ctx context.Context, ents [][]*lineEntry) {
 	e.mu.Lock()
 	for _, es := range ents {
 		for _, ent := range es {
-			if len(ent.refs) == 0 && ent.results[""] == nil && !ent.queued {
+			// A line analysed before has lastRes set: checking it first
+			// keeps an edit from looking every line up in its results.
+			if ent.lastRes == nil && len(ent.refs) == 0 && !ent.queued && ent.results[""] == nil {
 				ent.queued = true // an entry appears once however often its text does
 				todo = append(todo, ent)
 			}
@@ -284,6 +287,7 @@ func (e *Engine) entries(srcs []Source, found [][]foundLine, ents [][]*lineEntry
 	if len(misses) == 0 {
 		return gen
 	}
+	e.parsed.Add(int64(len(misses)))
 	fresh := make([]*lineEntry, len(misses))
 	for k, m := range misses {
 		l := found[m.src][m.line]

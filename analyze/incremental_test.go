@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"reflect"
 	"strings"
+	"sync"
 	"testing"
 )
 
@@ -60,4 +61,45 @@ func firstDiff(got, want []Diagnostic) string {
 		}
 	}
 	return fmt.Sprintf("lengths %d and %d", len(got), len(want))
+}
+
+// TestConcurrentOpen: several long pages opened at once on one Engine,
+// each spread over the cores, agree with a fresh Engine (run with -race).
+func TestConcurrentOpen(t *testing.T) {
+	e := NewEngine(Config{})
+	pages := [][]byte{benchNotebook(150), benchNotebook(90), []byte(strings.Replace(string(benchNotebook(150)), "DMF", "DMSO", -1))}
+	var wg sync.WaitGroup
+	got := make([][]*Report, 2*len(pages))
+	for g := range got {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			got[g], _ = e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: pages[g%len(pages)]}})
+		}()
+	}
+	wg.Wait()
+	for g, reps := range got {
+		want, _ := NewEngine(Config{}).Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: pages[g%len(pages)]}})
+		if !reflect.DeepEqual(reps[0].Steps, want[0].Steps) || !reflect.DeepEqual(reps[0].Diagnostics, want[0].Diagnostics) {
+			t.Errorf("page %d: concurrent analysis differs from a fresh Engine's", g)
+		}
+	}
+}
+
+// TestEditParsesOnlyChangedLines: an edit parses the lines whose text
+// changed and no other, however far the edit moves the lines after it.
+func TestEditParsesOnlyChangedLines(t *testing.T) {
+	page := string(benchNotebook(300))
+	e := NewEngine(Config{})
+	e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: []byte(page)}})
+	at := strings.Index(page, "NaI, acetone, 23 °C")
+	edited := page[:at] + "NaI, acetone, 230 °C" + page[at+len("NaI, acetone, 23 °C"):]
+	parsed, analysed := e.parsed.Load(), e.Analysed()
+	e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: []byte(edited)}})
+	if n := e.parsed.Load() - parsed; n != 1 {
+		t.Errorf("one line edited: %d lines parsed, want 1", n)
+	}
+	if n := e.Analysed() - analysed; n != 1 {
+		t.Errorf("one line edited, its product unchanged: %d steps analysed, want 1 (the step using its label is cached by product)", n)
+	}
 }

@@ -106,6 +106,14 @@ func fromFinding(f outcome.Finding, solventIndex map[int]int) chemFinding {
 	if f.Parties.Temp {
 		parties = append(parties, partyRef{on: partyTemperature})
 	}
+	if want, ok := markOn[cf.code]; ok {
+		for i, p := range parties {
+			if p.on == want {
+				parties[0], parties[i] = parties[i], parties[0]
+				break
+			}
+		}
+	}
 	if len(parties) > 0 {
 		cf.on, cf.index = parties[0].on, parties[0].index
 		cf.also = parties[1:]
@@ -114,6 +122,15 @@ func fromFinding(f outcome.Finding, solventIndex map[int]int) chemFinding {
 		cf.fixes = append(cf.fixes, fromFix(x, f.Parties, solventIndex)...)
 	}
 	return cf
+}
+
+// markOn names the party whose token carries a finding when it is not
+// the substrate: the mark goes where the chemist would make the change
+// the fix offers (the solvent for a protic solvent, the base for an
+// elimination); the substrate stays as related information.
+var markOn = map[string]party{
+	string(outcome.CodeProticSlows):    partySolvent,
+	string(outcome.CodeBaseEliminates): partyReagent,
 }
 
 // fromFix turns a fix in chemical terms into one chemFix per choice

@@ -104,11 +104,13 @@ type arena struct {
 const arenaChunk = 128
 
 // carve returns n elements of *buf, starting a new chunk when the current
-// one is too short. The result's capacity is n, so an append by a reader
-// of the Report cannot reach a neighbour's pieces.
+// one is too short. Chunks grow from small to arenaChunk, so that a call
+// placing a line or two does not set aside room for a page. The result's
+// capacity is n, so an append by a reader of the Report cannot reach a
+// neighbour's pieces.
 func carve[T any](buf *[]T, n int) []T {
 	if cap(*buf)-len(*buf) < n {
-		*buf = make([]T, 0, max(n, arenaChunk))
+		*buf = make([]T, 0, max(n, min(arenaChunk, 2*cap(*buf)+4)))
 	}
 	l := len(*buf)
 	*buf = (*buf)[:l+n]

@@ -44,9 +44,17 @@ func baseEliminates(o *Outcome, st Step, c *scoring, frac map[Mechanism]float64)
 		}
 		swap = append(swap, n)
 	}
-	o.Findings = append(o.Findings, Finding{Code: CodeBaseEliminates, Severity: Warning, Parties: Parties{Atoms: []int{c.site.Carbon}, Reactant: b.Reactant, Solvent: -1},
+	f := Finding{Code: CodeBaseEliminates, Severity: Warning, Parties: Parties{Atoms: []int{c.site.Carbon}, Reactant: b.Reactant, Solvent: -1},
 		Message: fmt.Sprintf("the %sbase (%s, pKaH %.1f) removes a β-hydrogen faster than it substitutes: about %.0f%% alkene predicted", bulky, name, b.PKaH, 100*frac[E2]),
-		Fixes:   []Fix{{Kind: ReplaceReagent, Title: "use a weakly basic nucleophile", Names: swap}, {Kind: ChangeTemp, Title: "run it cold", Names: []string{"0 °C"}}}})
+		Fixes:   []Fix{{Kind: ReplaceReagent, Title: "use a weakly basic nucleophile", Names: swap}, {Kind: ChangeTemp, Title: "run it cold", Names: []string{"0 °C"}}}}
+	if c.site.Degree == perceive.Tertiary {
+		// No nucleophile and no temperature gives SN2 at a tertiary
+		// carbon (Solomons & Fryhle Table 6.4): offering them would
+		// mislead; the alkene is the product of this step.
+		f.Message += "; a tertiary carbon gives no SN2 product with any nucleophile"
+		f.Fixes = nil
+	}
+	o.Findings = append(o.Findings, f)
 }
 
 // kindOf names the nucleophile kind of a dictionary entry's species, as

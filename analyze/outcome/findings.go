@@ -37,11 +37,11 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 			Message: fmt.Sprintf("%s carbon: SN2 here is slowed by the branching next door (neopentyl ~10^-5, isobutyl ~1/30 of ethyl)", what)})
 	}
 	baseEliminates(o, st, c, frac)
-	// Large, polarisable anions (iodide, thiocyanate, thiolates) are
-	// the least hydrogen-bonded and gain least from a dipolar aprotic
+	// Large, polarisable or delocalised anions (iodide, thiocyanate,
+	// thiolates, enolates) are the least hydrogen-bonded and gain least from a dipolar aprotic
 	// solvent (Parker, Chem. Rev. 1969, 69, 1, from memory): quoting the
-	// azide factor for them would overstate it, and thiolates in ethanol
-	// are routine (common practice). A salt that dissolves in no dipolar
+	// azide factor for them would overstate it, and thiolates or malonate
+	// with NaOEt in ethanol are routine (common practice). A salt that dissolves in no dipolar
 	// aprotic solvent (NaOH, KOH) has no such alternative to offer.
 	// A step predicted to eliminate is left alone: a dipolar aprotic
 	// solvent frees the anion as a base as much as a nucleophile (Parker
@@ -149,7 +149,7 @@ func proticIndex(st Step) int {
 
 // littleSolvated lists the anions whose SN2 rate a protic solvent slows
 // least (Parker 1969, from memory).
-var littleSolvated = map[perceive.NucKind]bool{"iodide": true, "thiocyanate": true, "thiophenoxide": true, "thiolate": true, "hydrosulfide": true}
+var littleSolvated = map[perceive.NucKind]bool{"iodide": true, "thiocyanate": true, "thiophenoxide": true, "thiolate": true, "hydrosulfide": true, "enolate": true}
 
 // dissolvesAprotic reports whether the nucleophile's reagent can be used
 // in DMF at all, by the dictionary's solubility hints (true when unknown).

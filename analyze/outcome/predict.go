@@ -162,6 +162,10 @@ func usableSites(sub *perceive.Substrate, act activation) []perceive.Site {
 
 // noSite explains why nothing can react.
 func noSite(o Outcome, sub *perceive.Substrate, rg perceive.Reagents) Outcome {
+	if why := deprotonationOnly(sub, rg); why != "" {
+		o.NotAnalysed = why
+		return o
+	}
 	if why := acylOnly(sub, rg); why != "" {
 		o.NotAnalysed = why
 		return o
@@ -304,4 +308,24 @@ func acylOnly(sub *perceive.Substrate, rg perceive.Reagents) string {
 		}
 	}
 	return ""
+}
+
+// deprotonationOnly explains a step that only makes an alkoxide: an
+// alcohol with a base strong enough to remove its proton (NaH, KH, LDA,
+// BuLi; alcohol pKa about 16–18, common compilations, from memory) and
+// no electrophile. That is an acid–base step whose product a later step
+// uses ("tBuOH + NaH, THF"), not a substitution with a poor leaving group.
+func deprotonationOnly(sub *perceive.Substrate, rg perceive.Reagents) string {
+	if len(sub.Sites) == 0 || rg.Base == nil || rg.Base.PKaH < 19 {
+		return ""
+	}
+	for _, s := range sub.Sites {
+		if s.Leaving.Kind != perceive.Hydroxyl {
+			return ""
+		}
+	}
+	if rg.Nucleophile != nil && rg.Nucleophile.Kind != rg.Base.Kind {
+		return ""
+	}
+	return "the base only removes the alcohol's proton (an acid–base step: the alkoxide for a later step); no carbon here bears a leaving group"
 }

@@ -45,6 +45,9 @@ func products(o *Outcome, st Step, c *scoring) {
 		if i == 0 {
 			out[i].Role = Major
 		}
+		if out[i].Pathway == SN2 || out[i].Pathway == SN1 {
+			dropFalseCentre(out[i].Mol)
+		}
 		out[i].SMILES = smiles.Canonical(out[i].Mol)
 	}
 	// The same product by two pathways is listed once.

@@ -65,9 +65,23 @@ func PerceiveReagents(rs []Reactant) Reagents {
 			out.Crown = true
 			continue
 		}
-		for _, c := range intrinsicSites(m, ring) {
+		// The entry's values describe the reagent's nucleophilic atom,
+		// which is its best site by the table: giving them to every site
+		// would let thiourea's NH2 groups tie with its sulfur (thiourea
+		// alkylates on S to the isothiouronium salt: Urquhart, Gates,
+		// Connor, Org. Synth. 1941, 21, 36, from memory).
+		sites := intrinsicSites(m, ring)
+		best := -1
+		for k, c := range sites {
+			if best < 0 || c.Data.N > sites[best].Data.N {
+				best = k
+			}
+		}
+		for k, c := range sites {
 			c.Reactant = i
-			c.Data = withEntry(c.Data, r.Entry, m, c.Atom)
+			if k == best {
+				c.Data = withEntry(c.Data, r.Entry, m, c.Atom)
+			}
 			intrinsic = append(intrinsic, c)
 		}
 		for _, c := range acidSites(m, ring) {
