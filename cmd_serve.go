@@ -8,6 +8,7 @@ import (
 	"log/slog"
 	"os"
 	"os/signal"
+	"runtime/debug"
 	"runtime/pprof"
 	"syscall"
 
@@ -59,6 +60,13 @@ func runServe(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	}
 	log := slog.New(slog.NewTextHandler(logTo, &slog.HandlerOptions{Level: level}))
 
+	if stdout == os.Stdout && os.Getenv("GOMEMLIMIT") == "" {
+		// A soft limit: the collector works harder only as the heap nears
+		// it, which keeps the server's resident memory within its target
+		// (issue 5: ≤ 100 MB) on a long page edited for hours; GOMEMLIMIT
+		// overrides it.
+		debug.SetMemoryLimit(serveMemoryLimit)
+	}
 	if stdout == os.Stdout {
 		os.Stdout = os.Stderr
 		defer func() { os.Stdout = stdout.(*os.File) }()
@@ -86,6 +94,9 @@ func runServe(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 	log.Info("walden serve stopped", "exit", code)
 	return code
 }
+
+// serveMemoryLimit is the soft memory limit of `walden serve`, in bytes.
+const serveMemoryLimit = 88 << 20
 
 // stdio joins the process's standard input and output into the one
 // stream the server speaks on.

@@ -31,6 +31,13 @@ type Engine struct {
 	lines map[string]*lineEntry // by line text
 	gen   uint64                // Analyze calls so far, for eviction
 
+	// Eviction: lastGen is the generation of the latest call that
+	// analysed each source (by name), so that the lines of a page open
+	// but not edited lately stay; sweepAt is the cache size at which the
+	// next sweep runs.
+	lastGen map[string]uint64
+	sweepAt int
+
 	analysed atomic.Int64 // steps analysed (cache misses), for tests and figures
 	diagHint atomic.Int64 // diagnostics in the last one-source Report, to size the next
 	parsed   atomic.Int64 // lines parsed (texts not seen before), for tests
@@ -54,13 +61,21 @@ type lineEntry struct {
 	queued  bool // taken by a prewarm worker
 }
 
-// maxCachedLines bounds the cache; past it, lines not used by the latest
-// Analyze call are dropped.
-const maxCachedLines = 200_000
+// The cache is swept once it holds a quarter more lines than it kept
+// after the last sweep (at least sweepMin more). A sweep keeps the lines
+// used by one of the last keepGens calls, or by the latest call that
+// analysed a source still known (the last maxSources names analysed):
+// what the open documents use, plus the few texts of recent typing.
+const (
+	keepGens   = 16
+	sweepMin   = 1024
+	maxSources = 256
+)
 
 // NewEngine returns an Engine using cfg.
 func NewEngine(cfg Config) *Engine {
-	e := &Engine{cfg: cfg, dict: newDictionary(cfg), disabled: map[string]bool{}, lines: map[string]*lineEntry{}}
+	e := &Engine{cfg: cfg, dict: newDictionary(cfg), disabled: map[string]bool{}, lines: map[string]*lineEntry{},
+		lastGen: map[string]uint64{}, sweepAt: sweepMin}
 	for _, c := range cfg.Disabled {
 		e.disabled[strings.TrimSpace(c)] = true
 	}
@@ -272,6 +287,9 @@ func (e *Engine) entries(srcs []Source, found [][]foundLine, ents [][]*lineEntry
 	e.mu.Lock()
 	e.gen++
 	gen := e.gen
+	for _, s := range srcs {
+		e.lastGen[s.Name] = gen
+	}
 	for i, s := range srcs {
 		for n, l := range found[i] {
 			// Indexing by string(bytes) does not copy the bytes.
@@ -420,17 +438,46 @@ func (e *Engine) analyseSafely(ent *lineEntry, refs map[string]*handOn) (res *st
 	return res
 }
 
-// evictLocked drops lines unused by the latest call once the cache is
-// too big. e.mu is held.
+// evictLocked drops the lines no open document is likely to use once the
+// cache has grown (see keepGens). Without it every text ever typed would
+// stay: each keystroke makes a new line text. e.mu is held.
 func (e *Engine) evictLocked(gen uint64) {
-	if len(e.lines) <= maxCachedLines {
+	if len(e.lines) < e.sweepAt {
 		return
 	}
+	if len(e.lastGen) > maxSources {
+		// Forget the sources analysed longest ago (closed documents, most
+		// likely).
+		gens := make([]uint64, 0, len(e.lastGen))
+		for _, g := range e.lastGen {
+			gens = append(gens, g)
+		}
+		slices.Sort(gens)
+		cut := gens[len(gens)-maxSources]
+		for name, g := range e.lastGen {
+			if g < cut {
+				delete(e.lastGen, name)
+			}
+		}
+	}
+	live := make(map[uint64]bool, len(e.lastGen))
+	for _, g := range e.lastGen {
+		live[g] = true
+	}
 	for k, v := range e.lines {
-		if v.used < gen {
+		if v.used+keepGens < gen && !live[v.used] {
 			delete(e.lines, k)
 		}
 	}
+	e.sweepAt = len(e.lines) + max(len(e.lines)/4, sweepMin)
+}
+
+// CachedLines returns how many line texts the Engine keeps, for tests
+// and measurements.
+func (e *Engine) CachedLines() int {
+	e.mu.Lock()
+	defer e.mu.Unlock()
+	return len(e.lines)
 }
 
 // filter drops the diagnostics whose codes the Config disables.

@@ -43,8 +43,16 @@ func plain(p *publishDiagnosticsParams) bool {
 }
 
 func appendDiagnostic(b []byte, d *protocol.Diagnostic) []byte {
+	return appendDiagnosticCuts(b, d, nil)
+}
+
+// appendDiagnosticCuts is appendDiagnostic that also records in cuts,
+// when not nil, the offset of every line number it writes, so that the
+// JSON of a line's diagnostics can be moved to another line by rewriting
+// only those numbers (linecache.go).
+func appendDiagnosticCuts(b []byte, d *protocol.Diagnostic, cuts *[]int) []byte {
 	b = append(b, `{"range":`...)
-	b = appendRange(b, d.Range)
+	b = appendRangeCuts(b, d.Range, cuts)
 	if d.Severity != 0 {
 		b = append(b, `,"severity":`...)
 		b = strconv.AppendInt(b, int64(d.Severity), 10)
@@ -78,7 +86,7 @@ func appendDiagnostic(b []byte, d *protocol.Diagnostic) []byte {
 			b = append(b, `{"location":{"uri":`...)
 			b = appendString(b, string(r.Location.URI))
 			b = append(b, `,"range":`...)
-			b = appendRange(b, r.Location.Range)
+			b = appendRangeCuts(b, r.Location.Range, cuts)
 			b = append(b, `},"message":`...)
 			b = appendString(b, r.Message)
 			b = append(b, '}')
@@ -88,12 +96,20 @@ func appendDiagnostic(b []byte, d *protocol.Diagnostic) []byte {
 	return append(b, '}')
 }
 
-func appendRange(b []byte, r protocol.Range) []byte {
+func appendRange(b []byte, r protocol.Range) []byte { return appendRangeCuts(b, r, nil) }
+
+func appendRangeCuts(b []byte, r protocol.Range, cuts *[]int) []byte {
 	b = append(b, `{"start":{"line":`...)
+	if cuts != nil {
+		*cuts = append(*cuts, len(b))
+	}
 	b = strconv.AppendUint(b, uint64(r.Start.Line), 10)
 	b = append(b, `,"character":`...)
 	b = strconv.AppendUint(b, uint64(r.Start.Character), 10)
 	b = append(b, `},"end":{"line":`...)
+	if cuts != nil {
+		*cuts = append(*cuts, len(b))
+	}
 	b = strconv.AppendUint(b, uint64(r.End.Line), 10)
 	b = append(b, `,"character":`...)
 	b = strconv.AppendUint(b, uint64(r.End.Character), 10)

@@ -1,8 +1,8 @@
 package server
 
 import (
+	"bytes"
 	"errors"
-	"reflect"
 	"sync"
 
 	"go.lsp.dev/protocol"
@@ -25,14 +25,17 @@ type publisher struct {
 	dirty   bool      // latest has not been published
 	running bool
 
-	shown map[protocol.DocumentURI]shown // what the client holds; only the loop touches it
-	buf   []byte                         // reused for encoding; only the loop touches it
+	// Only the loop touches these.
+	shown map[protocol.DocumentURI]shown      // what the client holds
+	lines map[protocol.DocumentURI]*lineCache // each document's diagnostics as JSON, per line
+	buf   []byte                              // reused for the message
+	body  []byte                              // reused for the diagnostics
 }
 
 // shown is what was last published for one document.
 type shown struct {
 	version int32
-	diags   []protocol.Diagnostic
+	body    []byte // the JSON array of its diagnostics
 }
 
 // kick records snap as the unit's newest state and makes sure the loop
@@ -90,19 +93,29 @@ func (p *publisher) publish(snap *snapshot, reps []*analyze.Report) {
 		keep = make(map[protocol.DocumentURI]bool, len(snap.docs))
 		for i, d := range snap.docs {
 			keep[d.uri] = true
-			diags := lspDiagnostics(d, reps[i])
-			if old, ok := p.shown[d.uri]; ok && old.version == d.version && reflect.DeepEqual(old.diags, diags) {
+			lc := p.lines[d.uri]
+			if lc == nil {
+				lc = newLineCache()
+				p.lines[d.uri] = lc
+			}
+			p.body = lc.appendDiagnostics(p.body[:0], d, reps[i])
+			old, ok := p.shown[d.uri]
+			if ok && old.version == d.version && bytes.Equal(old.body, p.body) {
 				continue
 			}
 			v := d.version
-			p.buf = p.s.publishDiagnostics(p.buf, &publishDiagnosticsParams{URI: d.uri, Version: &v, Diagnostics: diags})
-			p.shown[d.uri] = shown{version: d.version, diags: diags}
+			p.buf = p.s.publishEncoded(p.buf, d.uri, &v, p.body)
+			p.shown[d.uri] = shown{version: d.version, body: append(old.body[:0], p.body...)}
 		}
 	}
 	for uri := range p.shown {
 		if !keep[uri] {
 			p.buf = p.s.publishDiagnostics(p.buf, &publishDiagnosticsParams{URI: uri, Diagnostics: []protocol.Diagnostic{}})
 			delete(p.shown, uri)
+			delete(p.lines, uri)
 		}
+	}
+	if cap(p.body) > 16<<20 {
+		p.body = nil // do not keep a huge buffer after one huge page
 	}
 }

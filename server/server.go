@@ -4,6 +4,7 @@ import (
 	"context"
 	"io"
 	"log/slog"
+	"strconv"
 	"sync"
 	"sync/atomic"
 	"time"
@@ -174,6 +175,28 @@ func (s *Server) publishDiagnostics(buf []byte, p *publishDiagnosticsParams) []b
 	}
 	if cap(buf) > 16<<20 {
 		return nil // do not keep a huge buffer after one huge page
+	}
+	return buf
+}
+
+// publishEncoded sends the diagnostics of uri at version (nil: none)
+// given as a JSON array, encoding the message into buf, which it returns
+// for reuse.
+func (s *Server) publishEncoded(buf []byte, uri protocol.DocumentURI, version *int32, diags []byte) []byte {
+	buf = append(buf[:0], `{"jsonrpc":"2.0","method":"textDocument/publishDiagnostics","params":{"uri":`...)
+	buf = appendString(buf, string(uri))
+	if version != nil {
+		buf = append(buf, `,"version":`...)
+		buf = strconv.AppendInt(buf, int64(*version), 10)
+	}
+	buf = append(buf, `,"diagnostics":`...)
+	buf = append(buf, diags...)
+	buf = append(buf, "}}"...)
+	if _, err := s.stream.writeFrame(buf); err != nil {
+		s.log.Info("diagnostics not sent", "uri", uri, "err", err)
+	}
+	if cap(buf) > 16<<20 {
+		return nil
 	}
 	return buf
 }

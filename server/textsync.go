@@ -106,7 +106,7 @@ func (s *Server) replaceUnit(key protocol.DocumentURI, docs []*document) {
 		if snap == nil {
 			return
 		}
-		p = &publisher{s: s, shown: map[protocol.DocumentURI]shown{}}
+		p = &publisher{s: s, shown: map[protocol.DocumentURI]shown{}, lines: map[protocol.DocumentURI]*lineCache{}}
 		s.pubs[key] = p
 	}
 	p.kick(snap)

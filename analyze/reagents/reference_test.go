@@ -10,7 +10,7 @@ import (
 )
 
 // refDir holds the outside reference tables (see
-// /work/shared/reference/README.md). They are not the dictionary's own
+// ../shared/reference/README.md). They are not the dictionary's own
 // data: the dictionary was written from memory and the tests compare the
 // two, so a recollection that drifted shows up here.
 const refDir = "../../../shared/reference/tables/"
@@ -22,7 +22,7 @@ func readRef(t *testing.T, name string) []map[string]string {
 	t.Helper()
 	b, err := os.ReadFile(refDir + name)
 	if err != nil {
-		t.Skipf("reference table %s not available (%v); these checks need /work/shared/reference", name, err)
+		t.Skipf("reference table %s not available (%v); these checks need ../shared/reference", name, err)
 	}
 	lines := strings.Split(strings.TrimRight(string(b), "\n"), "\n")
 	header := strings.Split(lines[0], "\t")

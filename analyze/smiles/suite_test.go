@@ -12,7 +12,7 @@ import (
 // suitePath is the even-numbered half of the CIP validation suite:
 // Hanson, Musacchio, Mayfield, Vainio, Yerin, Redkin, J. Chem. Inf.
 // Model. 2018, 58, 1755-1765 (CIPValidationSuite/ValidationSuite,
-// compounds.smi). See /work/shared/reference/README.md.
+// compounds.smi). See ../shared/reference/README.md.
 const suitePath = "../../../shared/reference/cip-validation-dev.smi"
 
 // suiteSMILES returns the SMILES column of the suite, or skips.

@@ -1,7 +1,9 @@
 package notation
 
 import (
+	"encoding/binary"
 	"fmt"
+	"runtime"
 	"strings"
 	"sync"
 	"unicode/utf8"
@@ -113,6 +115,11 @@ func (p *parser) slabSize() int {
 	return slabSize
 }
 
+// newTerm, newSubstance and newQuantity return a zero node carved from
+// its slab. A slab is never reused, so the node is always fresh: callers
+// set its fields one by one rather than assigning a whole struct, which
+// would write every pointer field through the garbage collector's write
+// barrier.
 func (p *parser) newTerm() *Term {
 	if len(p.termSlab) == cap(p.termSlab) {
 		p.termSlab = make([]Term, 0, p.slabSize())
@@ -164,10 +171,38 @@ func Parse(line []byte, base source.Pos) (*Step, source.ErrorList) {
 // page costs a few allocations per hundred lines instead of several per
 // line. A span outside text gives an empty Step and a "bad-span" error.
 func ParseLines(text []byte, spans []source.Span) ([]*Step, []source.ErrorList) {
-	p := &parser{batch: true}
 	host := string(text)
 	steps := make([]*Step, len(spans))
 	errs := make([]source.ErrorList, len(spans))
+	// A long page is cut into one run of lines per core, each read by a
+	// parser of its own: lines are independent, and on opening a page the
+	// chemist waits for the whole of it. Short pages are not worth a
+	// goroutine.
+	workers := min(runtime.GOMAXPROCS(0), len(spans)/parallelLines)
+	if workers < 2 {
+		parseRun(text, host, spans, steps, errs)
+		return steps, errs
+	}
+	var wg sync.WaitGroup
+	for w := range workers {
+		lo, hi := w*len(spans)/workers, (w+1)*len(spans)/workers
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			parseRun(text, host, spans[lo:hi], steps[lo:hi], errs[lo:hi])
+		}()
+	}
+	wg.Wait()
+	return steps, errs
+}
+
+// parallelLines is the fewest lines per goroutine in ParseLines.
+const parallelLines = 1000
+
+// parseRun parses the lines at spans into steps and errs with one
+// parser, as ParseLines describes.
+func parseRun(text []byte, host string, spans []source.Span, steps []*Step, errs []source.ErrorList) {
+	p := &parser{batch: true}
 	for i, sp := range spans {
 		if sp.Start < 0 || sp.Start > sp.End || int(sp.End) > len(text) {
 			// A caller's mistake, reported rather than panicking.
@@ -183,7 +218,6 @@ func ParseLines(text []byte, spans []source.Span) ([]*Step, []source.ErrorList) 
 		}
 		steps[i], errs[i] = p.parse()
 	}
-	return steps, errs
 }
 
 // slabNode returns one zero node carved from *slab, starting a new slab
@@ -255,7 +289,7 @@ func (p *parser) parse() (*Step, source.ErrorList) {
 		if comment == nil {
 			comment = &slabNode(&p.commentSlab)[0]
 		}
-		*comment = Comment{Span: p.span(c, end), Text: strings.TrimSpace(p.str[c+2 : end])}
+		comment.Span, comment.Text = p.span(c, end), strings.TrimSpace(p.str[c+2:end])
 		st.Comment = comment
 		end = c
 	}
@@ -296,6 +330,11 @@ func (p *parser) skipSpace(i, end int) int {
 // editor shows faithfully; the bytes stay in the words that hold them.
 func (p *parser) checkBytes() {
 	for i := 0; i < len(p.src); {
+		// Eight printable ASCII bytes at a time: the common case.
+		if i+8 <= len(p.src) && printable8(binary.LittleEndian.Uint64(p.src[i:])) {
+			i += 8
+			continue
+		}
 		c := p.src[i]
 		if c < utf8.RuneSelf {
 			if c < 0x20 && c != '\t' || c == 0x7F {
@@ -316,6 +355,14 @@ func (p *parser) checkBytes() {
 		}
 		i += size
 	}
+}
+
+// printable8 reports whether the eight bytes of x are all in 0x20–0x7E.
+func printable8(x uint64) bool {
+	const ones, highs = 0x0101010101010101, 0x8080808080808080
+	below := (x - 0x20*ones) &^ x & highs                      // some byte < 0x20
+	del := ((x ^ 0x7F*ones) - ones) &^ (x ^ 0x7F*ones) & highs // some byte == 0x7F
+	return (x|below|del)&highs == 0
 }
 
 // commentStart returns where "//" begins a comment, or -1. The marker
@@ -355,7 +402,7 @@ func (p *parser) mark(st *Step, i, end int) int {
 		return i
 	}
 	st.Mark = p.markNode()
-	*st.Mark = Mark{Span: p.span(i, i+3), State: state}
+	st.Mark.Span, st.Mark.State = p.span(i, i+3), state
 	if i+3 < end && p.spaceAt(i+3, end) == 0 {
 		p.errorf(i, i+3, "mark-space", "status mark %s is followed by %s; put a space after the mark",
 			quote(p.str[i:i+3]), quote(p.wordAt(i+3, end)))
@@ -383,7 +430,7 @@ func (p *parser) label(st *Step, toks []tok) []tok {
 	if p.numbered(toks) {
 		t := toks[0]
 		st.Label = p.labelNode()
-		*st.Label = Label{Span: p.span(t.start, t.end), Name: p.str[t.start : t.end-1], NameSpan: p.span(t.start, t.end-1)}
+		st.Label.Span, st.Label.Name, st.Label.NameSpan = p.span(t.start, t.end), p.str[t.start:t.end-1], p.span(t.start, t.end-1)
 		if len(toks) == 1 {
 			p.errorf(t.start, t.end, "missing-substrate", "step number %s with no step after it; write the substrate after it", quote(p.text(t)))
 		}
@@ -395,7 +442,7 @@ func (p *parser) label(st *Step, toks []tok) []tok {
 	t := toks[0]
 	name := p.str[t.start : t.end-1]
 	st.Label = p.labelNode()
-	*st.Label = Label{Span: p.span(t.start, t.end), Name: name, NameSpan: p.span(t.start, t.end-1)}
+	st.Label.Span, st.Label.Name, st.Label.NameSpan = p.span(t.start, t.end), name, p.span(t.start, t.end-1)
 	switch {
 	case name == "":
 		p.errorf(t.start, t.end, "label-empty", "':' with no label before it; write a label such as 'azide:' or delete the ':'")
@@ -516,7 +563,7 @@ func (p *parser) terms(st *Step, toks []tok) {
 						"second arrow in one step; a step has one '->' before its expected products: split the line into two steps")
 				} else {
 					st.Arrow = p.arrowNode()
-					*st.Arrow = Arrow{Span: p.span(seg.sep.start, seg.sep.end)}
+					st.Arrow.Span = p.span(seg.sep.start, seg.sep.end)
 				}
 				ph = inProducts
 				if len(seg.toks) == 0 {

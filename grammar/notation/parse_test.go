@@ -300,7 +300,9 @@ func TestParseLines(t *testing.T) {
 		"CC(Br)C +", "", "@ + ,, NaN3 (1.5 eq", "(S)-4-phenylbutan-2-ol + potassium phthalimide, acetone–water 4:1, 0 °C to rt",
 		strings.Repeat("C", MaxLineLength+1), "CCBr«x»\xff",
 	}
-	for i := 0; i < 400; i++ { // enough lines to fill several slabs
+	// Enough lines to fill several slabs and, on a machine of two cores
+	// or more, to be cut into runs parsed at once.
+	for i := 0; i < 2*parallelLines+100; i++ {
 		l := lines[i%len(lines)]
 		text.WriteString("  ")
 		start := source.Pos(text.Len())

@@ -180,14 +180,45 @@ func readSigned(w string) (float64, int, bool) {
 	if digits == 0 || digits > 30 {
 		return 0, 0, false
 	}
-	v, err := strconv.ParseFloat(w[start:i], 64)
-	if err != nil {
-		return 0, 0, false
+	v, ok := exactDecimal(w[start:i], digits)
+	if !ok {
+		f, err := strconv.ParseFloat(w[start:i], 64)
+		if err != nil {
+			return 0, 0, false
+		}
+		v = f
 	}
 	if neg {
 		v = -v
 	}
 	return v, i, true
+}
+
+// exactPow10 holds the powers of ten a float64 holds exactly.
+var exactPow10 = [...]float64{1e0, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15}
+
+// exactDecimal converts the digits, with at most one '.', of a number of
+// at most 15 digits, as every amount in a notebook is. The digits as an
+// integer and the power of ten are then both exact, and one IEEE
+// division rounds correctly, so the result is the one strconv.ParseFloat
+// gives, without its general machinery; ok is false for longer numbers.
+func exactDecimal(s string, digits int) (float64, bool) {
+	if digits > 15 {
+		return 0, false
+	}
+	var m uint64
+	frac := -1
+	for i := 0; i < len(s); i++ {
+		if s[i] == '.' {
+			frac = 0
+			continue
+		}
+		m = m*10 + uint64(s[i]-'0')
+		if frac >= 0 {
+			frac++
+		}
+	}
+	return float64(m) / exactPow10[max(frac, 0)], true
 }
 
 // readRatio reads "4:1" or "1:1:2".

@@ -12,7 +12,7 @@ import (
 // the substance.
 func (p *parser) term(toks []tok, sep *Sep) *Term {
 	t := p.newTerm()
-	*t = Term{Span: p.span(toks[0].start, toks[len(toks)-1].end)}
+	t.Span = p.span(toks[0].start, toks[len(toks)-1].end)
 	if sep != nil {
 		t.sep = *sep // kept in the term: one allocation fewer
 		t.Sep = &t.sep
@@ -126,7 +126,7 @@ func (p *parser) wordChecks(tk tok) {
 func (p *parser) reference(tk tok) *Substance {
 	name := p.str[tk.start+1 : tk.end]
 	s := p.newSubstance()
-	*s = Substance{Span: p.span(tk.start, tk.end), Kind: Reference, Text: name}
+	s.Span, s.Kind, s.Text = p.span(tk.start, tk.end), Reference, name
 	if name == "" {
 		p.errorf(tk.start, tk.end, "reference-empty", "'@' with no label after it; write the label of an earlier step, as in '@mesylate'")
 		return s
@@ -211,14 +211,14 @@ func (p *parser) single(ws []tok, last bool) (*Quantity, int) {
 	for n := min(maxWordsInQuantityWord, len(ws)); n >= 1; n-- {
 		if u, ok := p.quantityWord(ws[:n]); ok {
 			q := p.newQuantity()
-			*q = Quantity{Span: p.span(ws[0].start, ws[n-1].end), Kind: u.kind, Word: u.name}
+			q.Span, q.Kind, q.Word = p.span(ws[0].start, ws[n-1].end), u.kind, u.name
 			return q, n
 		}
 	}
 	w := p.text(ws[0])
 	if r, ok := readRatio(w); ok {
 		q := p.newQuantity()
-		*q = Quantity{Span: p.span(ws[0].start, ws[0].end), Kind: Ratio, Ratio: r}
+		q.Span, q.Kind, q.Ratio = p.span(ws[0].start, ws[0].end), Ratio, r
 		if len(ws) > 1 && strings.EqualFold(p.text(ws[1]), "v/v") {
 			q.Span.End = p.span(ws[1].start, ws[1].end).End
 			return q, 2
@@ -230,10 +230,10 @@ func (p *parser) single(ws []tok, last bool) (*Quantity, int) {
 		return nil, 0
 	}
 	q := p.newQuantity()
-	*q = Quantity{Span: p.span(ws[0].start, ws[0].end), Value: num.value, HasValue: true}
+	q.Span, q.Value, q.HasValue = p.span(ws[0].start, ws[0].end), num.value, true
 	if num.hasTo {
 		q.To = p.newQuantity()
-		*q.To = Quantity{Span: p.span(ws[0].start+num.toStart, ws[0].start+num.end), Value: num.to, HasValue: true}
+		q.To.Span, q.To.Value, q.To.HasValue = p.span(ws[0].start+num.toStart, ws[0].start+num.end), num.to, true
 	}
 	setUnit := func(u unit, a, b int) {
 		q.Kind, q.Unit, q.UnitSpan = u.kind, u.name, p.span(a, b)
@@ -344,7 +344,7 @@ func (p *parser) substance(run []tok) *Substance {
 	if !p.anyJoins(run) {
 		s := p.newSubstance()
 		first, last := run[0], run[len(run)-1]
-		*s = Substance{Span: p.span(first.start, last.end), Kind: Word, Text: p.str[first.start:last.end]}
+		s.Span, s.Kind, s.Text = p.span(first.start, last.end), Word, p.str[first.start:last.end]
 		if len(run) == 1 {
 			return s
 		}
@@ -387,7 +387,7 @@ func (p *parser) substance(run []tok) *Substance {
 	plain = plain && len(run) == 1
 	build := func(ps []piece) *Substance {
 		s := p.newSubstance()
-		*s = Substance{Span: p.span(ps[0].start, ps[len(ps)-1].end), Kind: Word, Text: p.str[ps[0].start:ps[len(ps)-1].end]}
+		s.Span, s.Kind, s.Text = p.span(ps[0].start, ps[len(ps)-1].end), Word, p.str[ps[0].start:ps[len(ps)-1].end]
 		if len(ps) == 1 {
 			return s
 		}
@@ -412,7 +412,7 @@ func (p *parser) substance(run []tok) *Substance {
 		return s
 	}
 	m := p.newSubstance()
-	*m = Substance{Span: whole, Kind: Mixture, Parts: make([]*Substance, 0, len(bounds))}
+	m.Span, m.Kind, m.Parts = whole, Mixture, make([]*Substance, 0, len(bounds))
 	from := 0
 	for i, to := range bounds {
 		ps := pieces[from:to]

@@ -1,0 +1,179 @@
+package server
+
+import (
+	"strconv"
+
+	"walden/analyze"
+	"walden/grammar/source"
+)
+
+// lineCache keeps, for one document, the JSON of the diagnostics of each
+// line as last published, so that a publication after an edit encodes
+// only the lines whose findings changed and copies the others' bytes.
+//
+// A line's entry is found by the line's text and used when the line's
+// findings, taken relative to the line's start, are the same as when it
+// was encoded: the characters (UTF-16 units) of a span depend only on the
+// text before it on its line, so only the line number can differ, and
+// the entry knows where it wrote each. Typing within a line changes no
+// other line's JSON; inserting a line rewrites the numbers of the lines
+// below it, not their JSON.
+//
+// Only the publisher's loop touches a lineCache.
+type lineCache struct {
+	lines map[string]*encodedLine // by line text
+	gen   uint64                  // publications so far, for eviction
+}
+
+// encodedLine is the JSON of one line's diagnostics.
+type encodedLine struct {
+	diags []analyze.Diagnostic // relative to the line's start; Fixes dropped (not published)
+	line  int                  // the line number written in json
+	json  []byte               // the diagnostics, separated by commas
+	cuts  []int                // where each line number starts in json
+	used  uint64               // the last publication that used it
+}
+
+func newLineCache() *lineCache { return &lineCache{lines: map[string]*encodedLine{}} }
+
+// appendDiagnostics appends the JSON array of r's diagnostics in d.
+// r.Diagnostics are sorted by start (analyze.Report's promise); a
+// diagnostic reaching outside its line is encoded afresh every time.
+func (c *lineCache) appendDiagnostics(b []byte, d *document, r *analyze.Report) []byte {
+	c.gen++
+	m := d.mapper
+	text := m.Text()
+	n := m.LineCount()
+	b = append(b, '[')
+	first := true
+	comma := func() {
+		if !first {
+			b = append(b, ',')
+		}
+		first = false
+	}
+	ds := r.Diagnostics
+	k, groups := 0, 0
+	for i := 0; i < len(ds); {
+		start := ds[i].Span.Start
+		for k+1 < n && m.Line(k+1).Start <= start {
+			k++
+		}
+		line := m.Line(k)
+		next := source.Pos(len(text) + 1)
+		if k+1 < n {
+			next = m.Line(k + 1).Start
+		}
+		j := i + 1
+		for j < len(ds) && ds[j].Span.Start < next {
+			j++
+		}
+		group := ds[i:j]
+		i = j
+		if !within(group, line) {
+			for x := range group {
+				comma()
+				dg := lspDiagnostic(d, &group[x])
+				b = appendDiagnostic(b, &dg)
+			}
+			continue
+		}
+		groups++
+		ent := c.lines[string(text[line.Start:line.End])]
+		switch {
+		case ent == nil || !ent.same(group, line.Start):
+			ent = c.encode(d, group, line.Start, k)
+			c.lines[string(text[line.Start:line.End])] = ent
+		case ent.line != k:
+			ent.move(k)
+		}
+		ent.used = c.gen
+		comma()
+		b = append(b, ent.json...)
+	}
+	if len(c.lines) > 2*groups+64 {
+		for key, ent := range c.lines {
+			if ent.used != c.gen {
+				delete(c.lines, key)
+			}
+		}
+	}
+	return append(b, ']')
+}
+
+// within reports whether every span of the group, related ones included,
+// lies on line.
+func within(group []analyze.Diagnostic, line source.Span) bool {
+	in := func(s source.Span) bool { return s.Start >= line.Start && s.End <= line.End && s.Start <= s.End }
+	for x := range group {
+		if !in(group[x].Span) {
+			return false
+		}
+		for _, r := range group[x].Related {
+			if !in(r.Span) {
+				return false
+			}
+		}
+	}
+	return true
+}
+
+// encode makes the entry of a line's group of diagnostics.
+func (c *lineCache) encode(d *document, group []analyze.Diagnostic, base source.Pos, line int) *encodedLine {
+	ent := &encodedLine{diags: make([]analyze.Diagnostic, len(group)), line: line}
+	for x := range group {
+		f := group[x]
+		if x > 0 {
+			ent.json = append(ent.json, ',')
+		}
+		dg := lspDiagnostic(d, &f)
+		ent.json = appendDiagnosticCuts(ent.json, &dg, &ent.cuts)
+		f.Span = f.Span.Shift(-base)
+		f.Fixes = nil
+		if len(f.Related) > 0 {
+			rel := make([]analyze.Related, len(f.Related))
+			for y, r := range f.Related {
+				rel[y] = analyze.Related{Span: r.Span.Shift(-base), Message: r.Message}
+			}
+			f.Related = rel
+		}
+		ent.diags[x] = f
+	}
+	return ent
+}
+
+// same reports whether group, placed at base, says what the entry says.
+func (e *encodedLine) same(group []analyze.Diagnostic, base source.Pos) bool {
+	if len(e.diags) != len(group) {
+		return false
+	}
+	for x := range group {
+		a, g := &e.diags[x], &group[x]
+		if a.Span != g.Span.Shift(-base) || a.Severity != g.Severity || a.Unneeded != g.Unneeded ||
+			a.Code != g.Code || a.Message != g.Message || len(a.Related) != len(g.Related) {
+			return false
+		}
+		for y := range g.Related {
+			if a.Related[y].Span != g.Related[y].Span.Shift(-base) || a.Related[y].Message != g.Related[y].Message {
+				return false
+			}
+		}
+	}
+	return true
+}
+
+// move rewrites the entry's line numbers for line.
+func (e *encodedLine) move(line int) {
+	old := strconv.AppendInt(nil, int64(e.line), 10)
+	num := strconv.AppendInt(nil, int64(line), 10)
+	out := make([]byte, 0, len(e.json)+len(e.cuts)*(len(num)-len(old)))
+	prev := 0
+	for x, at := range e.cuts {
+		out = append(out, e.json[prev:at]...)
+		e.cuts[x] = len(out)
+		out = append(out, num...)
+		prev = at + len(old)
+	}
+	e.json = append(out, e.json[prev:]...)
+	e.line = line
+}
