@@ -42,9 +42,6 @@ type emacsResults struct {
 }
 
 func TestEmacsEndToEnd(t *testing.T) {
-	if _, ok := commands["serve"]; !ok {
-		t.Skip("waiting for `walden serve` (cmd_serve.go)")
-	}
 	emacs, err := exec.LookPath("emacs")
 	if err != nil {
 		t.Skip("emacs is not on PATH: install Emacs with eglot (Debian: apt-get install emacs-nox elpa-eglot elpa-markdown-mode) to run this test; CI installs them")
@@ -54,31 +51,14 @@ func TestEmacsEndToEnd(t *testing.T) {
 	if out, err := probe.CombinedOutput(); err != nil {
 		t.Skipf("Emacs lacks eglot or markdown-mode (Debian: apt-get install elpa-eglot elpa-markdown-mode): %v\n%s", err, out)
 	}
-	demo := filepath.Join("testdata", "demo")
-	pages, _ := filepath.Glob(filepath.Join(demo, "*.md"))
-	plans, _ := filepath.Glob(filepath.Join(demo, "*.steps"))
-	if len(pages) == 0 || len(plans) == 0 {
-		t.Skip("waiting for the demo notebook: testdata/demo needs a .md page and a .steps plan")
-	}
-
 	work := t.TempDir()
 	bin := buildWalden(t, work)
 	var plan e2ePlan
 	plan.TimeoutMS = int(e2eWait / time.Millisecond)
-	for _, src := range append(pages, plans...) {
-		text, err := os.ReadFile(src)
-		if err != nil {
-			t.Fatal(err)
-		}
-		dst := filepath.Join(work, "notebook", filepath.Base(src))
-		if err := os.MkdirAll(filepath.Dir(dst), 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(dst, text, 0o644); err != nil {
-			t.Fatal(err)
-		}
+	for _, d := range copyDemo(t, work) {
+		dst := d.dst
 		f := e2eFile{Path: dst}
-		for _, st := range stepLines(filepath.Ext(src), string(text)) {
+		for _, st := range d.steps {
 			for _, h := range demoHovers {
 				if strings.TrimSpace(st.text) == h.line {
 					f.Hovers = append(f.Hovers, lspPosition{Line: st.line, Character: st.indent})

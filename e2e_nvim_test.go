@@ -127,20 +127,10 @@ type e2eHover struct {
 }
 
 func TestNeovimEndToEnd(t *testing.T) {
-	if _, ok := commands["serve"]; !ok {
-		t.Skip("waiting for `walden serve` (cmd_serve.go): nothing to connect Neovim to yet")
-	}
 	nvim, err := exec.LookPath("nvim")
 	if err != nil {
 		t.Skip("nvim is not on PATH: install Neovim (Debian: apt-get install neovim) to run the editor end-to-end test; CI installs it")
 	}
-	demo := filepath.Join("testdata", "demo")
-	pages, _ := filepath.Glob(filepath.Join(demo, "*.md"))
-	plans, _ := filepath.Glob(filepath.Join(demo, "*.steps"))
-	if len(pages) == 0 || len(plans) == 0 {
-		t.Skip("waiting for the demo notebook: testdata/demo needs a .md page and a .steps plan")
-	}
-
 	work := t.TempDir()
 	bin := buildWalden(t, work)
 
@@ -148,19 +138,8 @@ func TestNeovimEndToEnd(t *testing.T) {
 	// project folder Neovim finds is the copy's.
 	var plan e2ePlan
 	plan.TimeoutMS = int(e2eWait / time.Millisecond)
-	for _, src := range append(pages, plans...) {
-		text, err := os.ReadFile(src)
-		if err != nil {
-			t.Fatal(err)
-		}
-		dst := filepath.Join(work, "notebook", filepath.Base(src))
-		if err := os.MkdirAll(filepath.Dir(dst), 0o755); err != nil {
-			t.Fatal(err)
-		}
-		if err := os.WriteFile(dst, text, 0o644); err != nil {
-			t.Fatal(err)
-		}
-		steps := stepLines(filepath.Ext(src), string(text))
+	for _, d := range copyDemo(t, work) {
+		src, dst, steps := d.src, d.dst, d.steps
 		if len(steps) == 0 {
 			t.Fatalf("%s: no step lines found; the demo should have some", src)
 		}
@@ -347,6 +326,40 @@ func fenceOf(s string) string {
 		return ""
 	}
 	return s[:n]
+}
+
+// demoCopy is one file of the demo notebook copied for an editor test.
+type demoCopy struct {
+	src, dst string
+	steps    []stepLine
+}
+
+// copyDemo copies the demo's Markdown pages and plan files into
+// work/notebook and returns each copy with its step lines.
+func copyDemo(t *testing.T, work string) []demoCopy {
+	t.Helper()
+	demo := filepath.Join("testdata", "demo")
+	pages, _ := filepath.Glob(filepath.Join(demo, "*.md"))
+	plans, _ := filepath.Glob(filepath.Join(demo, "*.steps"))
+	if len(pages) == 0 || len(plans) == 0 {
+		t.Fatal("testdata/demo needs a .md page and a .steps plan")
+	}
+	var out []demoCopy
+	for _, src := range append(pages, plans...) {
+		text, err := os.ReadFile(src)
+		if err != nil {
+			t.Fatal(err)
+		}
+		dst := filepath.Join(work, "notebook", filepath.Base(src))
+		if err := os.MkdirAll(filepath.Dir(dst), 0o755); err != nil {
+			t.Fatal(err)
+		}
+		if err := os.WriteFile(dst, text, 0o644); err != nil {
+			t.Fatal(err)
+		}
+		out = append(out, demoCopy{src, dst, stepLines(filepath.Ext(src), string(text))})
+	}
+	return out
 }
 
 // buildWalden builds the command into dir and returns the program's path.

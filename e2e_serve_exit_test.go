@@ -21,9 +21,6 @@ import (
 // the Neovim test shows as "did not exit"; this test shows it without an
 // editor, in a second.
 func TestServeExitsWithSocketStdio(t *testing.T) {
-	if _, ok := commands["serve"]; !ok {
-		t.Skip("waiting for `walden serve` (cmd_serve.go)")
-	}
 	bin := buildWalden(t, t.TempDir())
 
 	// One socket pair per direction, blocking, as a libuv parent leaves

@@ -109,6 +109,20 @@ type labelDef struct {
 // analyse, plus one pass over the page that copies each unchanged line's
 // cached pieces (shifted when the edit moved the line) into the Report.
 func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) {
+	return e.analyze(ctx, srcs, false)
+}
+
+// AnalyzeLines is Analyze for a caller that reads each step line's
+// findings through Report.Lines, as the language server does after every
+// edit: its Reports leave Steps and Diagnostics empty, so an edit does not
+// rewrite the pieces of every line it moved; Report.Full builds them, once,
+// for the callers that need them. With codes disabled in the Config it
+// returns full Reports, whose Lines reports false.
+func (e *Engine) AnalyzeLines(ctx context.Context, srcs []Source) ([]*Report, error) {
+	return e.analyze(ctx, srcs, len(e.disabled) == 0)
+}
+
+func (e *Engine) analyze(ctx context.Context, srcs []Source, lazy bool) ([]*Report, error) {
 	reps := make([]*Report, len(srcs))
 	for i, s := range srcs {
 		reps[i] = &Report{Name: s.Name, dict: e.dict}
@@ -152,8 +166,14 @@ func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) 
 	defer e.mu.Unlock()
 	for i := range srcs {
 		rep := reps[i]
-		rep.Steps = make([]StepReport, 0, len(found[i]))
 		rep.steps = make([]placedStep, 0, len(found[i]))
+		if lazy {
+			rep.lines = &lineParts{finds: finds[i]}
+			e.linesLocked(ctx, rep, found[i], ents[i], defined, later, &order, &defs, i, srcs)
+			rep.labels = order[:len(order):len(order)]
+			continue
+		}
+		rep.Steps = make([]StepReport, 0, len(found[i]))
 		rep.Diagnostics = make([]Diagnostic, 0, len(finds[i])+max(len(found[i])/2, int(e.diagHint.Load())))
 		rep.Diagnostics = append(rep.Diagnostics, finds[i]...)
 		for n, l := range found[i] {

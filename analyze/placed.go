@@ -13,6 +13,8 @@ type placedStep struct {
 	res     *stepResult
 	text    string // the line
 	nLabels int    // how many labels (Report.labels) are visible to the step
+
+	extra []Diagnostic // label findings, in host positions; AnalyzeLines only
 }
 
 // stepAt returns the step whose line holds pos (its end included, where

@@ -76,6 +76,7 @@ type Report struct {
 	steps  []placedStep // the cached results behind Steps, for Hover and Complete
 	labels []*labelDef  // labels defined up to the end of this source, in order
 	dict   *dictionary  // for completion
+	lines  *lineParts   // set by AnalyzeLines: Steps and Diagnostics are built by Full
 }
 
 // StepReport is what the editor shows of one step besides diagnostics.

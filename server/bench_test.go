@@ -21,10 +21,10 @@ import (
 // the real binary, `walden serve`, driven over its stdin and stdout by the
 // jsonrpc2 client of client_test.go (in its light mode, which notes each
 // publication by uri and version without decoding the diagnostics, as the
-// time an editor's own decoder takes is not the server's), on a 5,000-line
-// notebook page:
+// time an editor's own decoder takes is not the server's), on two
+// 5,000-line notebook pages (see BenchmarkServe):
 //
-//	go test ./server -run XXX -bench Serve -benchtime 400x
+//	go test ./server -run XXX -bench Serve -benchtime 300x
 //
 // Figures reported per sub-benchmark: p50 and p99 latency in ms (edit →
 // published diagnostics, hover → reply, open → first diagnostics) and the

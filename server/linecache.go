@@ -1,6 +1,8 @@
 package server
 
 import (
+	"cmp"
+	"slices"
 	"strconv"
 
 	"walden/analyze"
@@ -23,6 +25,10 @@ import (
 type lineCache struct {
 	lines map[string]*encodedLine // by line text
 	gen   uint64                  // publications so far, for eviction
+
+	// For Reports with Lines: by the identity of a line's own findings,
+	// which the Engine keeps the same while the line's result is the same.
+	owned map[*analyze.Diagnostic]*encodedLine
 }
 
 // encodedLine is the JSON of one line's diagnostics.
@@ -32,14 +38,32 @@ type encodedLine struct {
 	json  []byte               // the diagnostics, separated by commas
 	cuts  []int                // where each line number starts in json
 	used  uint64               // the last publication that used it
+
+	// For an entry in owned: where the step starts on its line, the text
+	// before it there (the characters depend on it) and the line's
+	// label findings, relative to the line's start.
+	inLine source.Pos
+	before string
+	extra  []analyze.Diagnostic
 }
 
-func newLineCache() *lineCache { return &lineCache{lines: map[string]*encodedLine{}} }
+func newLineCache() *lineCache {
+	return &lineCache{lines: map[string]*encodedLine{}, owned: map[*analyze.Diagnostic]*encodedLine{}}
+}
 
 // appendDiagnostics appends the JSON array of r's diagnostics in d.
 // r.Diagnostics are sorted by start (analyze.Report's promise); a
 // diagnostic reaching outside its line is encoded afresh every time.
 func (c *lineCache) appendDiagnostics(b []byte, d *document, r *analyze.Report) []byte {
+	if lines, other, ok := r.Lines(); ok {
+		return c.appendLines(b, d, lines, other)
+	}
+	return c.appendFlat(b, d, r.Diagnostics)
+}
+
+// appendFlat appends the JSON array of ds, sorted by start, caching by
+// line text and comparing each line's findings by value.
+func (c *lineCache) appendFlat(b []byte, d *document, ds []analyze.Diagnostic) []byte {
 	c.gen++
 	m := d.mapper
 	text := m.Text()
@@ -52,7 +76,6 @@ func (c *lineCache) appendDiagnostics(b []byte, d *document, r *analyze.Report) 
 		}
 		first = false
 	}
-	ds := r.Diagnostics
 	k, groups := 0, 0
 	for i := 0; i < len(ds); {
 		start := ds[i].Span.Start
@@ -91,14 +114,26 @@ func (c *lineCache) appendDiagnostics(b []byte, d *document, r *analyze.Report) 
 		comma()
 		b = append(b, ent.json...)
 	}
-	if len(c.lines) > 2*groups+64 {
-		for key, ent := range c.lines {
-			if ent.used != c.gen {
-				delete(c.lines, key)
-			}
+	c.sweep(groups)
+	return append(b, ']')
+}
+
+// sweep drops the entries the last publication did not use once they
+// outnumber those it used.
+func (c *lineCache) sweep(used int) {
+	if len(c.lines)+len(c.owned) <= 2*used+64 {
+		return
+	}
+	for key, ent := range c.lines {
+		if ent.used != c.gen {
+			delete(c.lines, key)
 		}
 	}
-	return append(b, ']')
+	for key, ent := range c.owned {
+		if ent.used != c.gen {
+			delete(c.owned, key)
+		}
+	}
 }
 
 // within reports whether every span of the group, related ones included,
@@ -176,4 +211,152 @@ func (e *encodedLine) move(line int) {
 	}
 	e.json = append(out, e.json[prev:]...)
 	e.line = line
+}
+
+// appendLines appends the JSON array of the diagnostics of a Report made
+// by AnalyzeLines: each line's own findings are looked up by identity,
+// so an unchanged line costs a map lookup and a copy, and the others
+// (few: unterminated fences and the like) are encoded afresh, in start
+// order with the lines.
+func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindings, other []analyze.Diagnostic) []byte {
+	c.gen++
+	m := d.mapper
+	text := m.Text()
+	n := m.LineCount()
+	b = append(b, '[')
+	first := true
+	comma := func() {
+		if !first {
+			b = append(b, ',')
+		}
+		first = false
+	}
+	fresh := func(f *analyze.Diagnostic) {
+		comma()
+		dg := lspDiagnostic(d, f)
+		b = appendDiagnostic(b, &dg)
+	}
+	k, o, used := 0, 0, 0
+	for _, l := range lines {
+		if len(l.Own) == 0 && len(l.Extra) == 0 {
+			continue
+		}
+		for o < len(other) && other[o].Span.Start <= l.Span.Start {
+			fresh(&other[o])
+			o++
+		}
+		for k+1 < n && m.Line(k+1).Start <= l.Span.Start {
+			k++
+		}
+		line := m.Line(k)
+		if len(l.Own) == 0 || l.Span.End > line.End {
+			// Label findings only (cached by value), or a step that is not
+			// on one line.
+			group := l.Extra
+			if len(l.Own) > 0 {
+				group = joined(l)
+			}
+			if within(group, line) {
+				used++
+				comma()
+				b = append(b, c.byText(d, text, group, line, k).json...)
+				continue
+			}
+			for x := range group {
+				fresh(&group[x])
+			}
+			continue
+		}
+		inLine := l.Span.Start - line.Start
+		before := text[line.Start:l.Span.Start]
+		ent := c.owned[&l.Own[0]]
+		switch {
+		case ent == nil || len(ent.diags) != len(l.Own) || ent.inLine != inLine || ent.before != string(before) || !sameRel(ent.extra, l.Extra, line.Start):
+			group := joined(l)
+			if !within(group, line) {
+				for x := range group {
+					fresh(&group[x])
+				}
+				continue
+			}
+			ent = c.encode(d, group, line.Start, k)
+			ent.diags = l.Own // kept for its length; the entry is keyed by its identity
+			ent.inLine, ent.before = inLine, string(before)
+			ent.extra = relative(l.Extra, line.Start)
+			c.owned[&l.Own[0]] = ent
+		case ent.line != k:
+			ent.move(k)
+		}
+		ent.used = c.gen
+		used++
+		comma()
+		b = append(b, ent.json...)
+	}
+	for ; o < len(other); o++ {
+		fresh(&other[o])
+	}
+	c.sweep(used)
+	return append(b, ']')
+}
+
+// joined returns a line's findings in host positions, sorted by start as
+// Report.Full sorts them.
+func joined(l analyze.LineFindings) []analyze.Diagnostic {
+	g := make([]analyze.Diagnostic, 0, len(l.Own)+len(l.Extra))
+	for _, f := range l.Own {
+		f.Span = f.Span.Shift(l.Span.Start)
+		if len(f.Related) > 0 {
+			rel := make([]analyze.Related, len(f.Related))
+			for y, r := range f.Related {
+				rel[y] = analyze.Related{Span: r.Span.Shift(l.Span.Start), Message: r.Message}
+			}
+			f.Related = rel
+		}
+		g = append(g, f)
+	}
+	g = append(g, l.Extra...)
+	slices.SortStableFunc(g, func(a, b analyze.Diagnostic) int { return cmp.Compare(a.Span.Start, b.Span.Start) })
+	return g
+}
+
+// byText returns the entry of a group of findings on line k, found by
+// the line's text and compared by value, encoding it on a miss.
+func (c *lineCache) byText(d *document, text []byte, group []analyze.Diagnostic, line source.Span, k int) *encodedLine {
+	ent := c.lines[string(text[line.Start:line.End])]
+	switch {
+	case ent == nil || !ent.same(group, line.Start):
+		ent = c.encode(d, group, line.Start, k)
+		c.lines[string(text[line.Start:line.End])] = ent
+	case ent.line != k:
+		ent.move(k)
+	}
+	ent.used = c.gen
+	return ent
+}
+
+// relative returns ds moved to positions relative to base, for comparing.
+func relative(ds []analyze.Diagnostic, base source.Pos) []analyze.Diagnostic {
+	if len(ds) == 0 {
+		return nil
+	}
+	e := &encodedLine{}
+	e.diags = make([]analyze.Diagnostic, len(ds))
+	for x, f := range ds {
+		f.Span = f.Span.Shift(-base)
+		f.Fixes = nil
+		if len(f.Related) > 0 {
+			rel := make([]analyze.Related, len(f.Related))
+			for y, r := range f.Related {
+				rel[y] = analyze.Related{Span: r.Span.Shift(-base), Message: r.Message}
+			}
+			f.Related = rel
+		}
+		e.diags[x] = f
+	}
+	return e.diags
+}
+
+// sameRel reports whether ds, placed at base, are rel.
+func sameRel(rel, ds []analyze.Diagnostic, base source.Pos) bool {
+	return (&encodedLine{diags: rel}).same(ds, base)
 }

@@ -1,6 +1,11 @@
 package server
 
 import (
+	"context"
+	"encoding/json"
+	"reflect"
+	"sort"
+	"strings"
 	"testing"
 
 	"walden/analyze"
@@ -66,6 +71,65 @@ func sortDiags(ds []analyze.Diagnostic) {
 	for i := 1; i < len(ds); i++ {
 		for j := i; j > 0 && ds[j].Span.Start < ds[j-1].Span.Start; j-- {
 			ds[j], ds[j-1] = ds[j-1], ds[j]
+		}
+	}
+}
+
+// With an Engine's Reports read line by line (AnalyzeLines), the cache
+// says what encoding the full Report afresh says, over typing, inserted
+// and deleted lines, labels that stop resolving and an unclosed fence.
+func TestLineCacheMatchesFullReport(t *testing.T) {
+	page := "# Page\r\n\r\n```reaction\r\na: CC(C)(Br)CC + KOtBu, THF, 60 °C\r\nCCCCBr + NaN3, EtOH, 25 °C\r\n@a + NaN3, DMF, 25 °C\r\nCCCCO + NaN3, DMF, 25 °C é\r\n```\r\n"
+	edits := []func(string) string{
+		func(s string) string { return strings.Replace(s, "EtOH, 25", "EtOH, 255", 1) },
+		func(s string) string {
+			return strings.Replace(s, "```reaction\r\n", "```reaction\r\nCCBr + NaN3, EtOH, 30 °C\r\n", 1)
+		},
+		func(s string) string { return strings.Replace(s, "a: CC", "b: CC", 1) },
+		func(s string) string { return strings.Replace(s, "b: CC", "a: CC", 1) },
+		func(s string) string { return strings.Replace(s, "CCBr + NaN3, EtOH, 30 °C\r\n", "", 1) },
+		func(s string) string { return s + "\r\n```reaction\r\nCCCBr + NaN3, MeOH, 25 °C\r\n" },
+		func(s string) string { return "Intro 🧪\r\n" + s },
+	}
+	e := analyze.NewEngine(analyze.Config{})
+	c := newLineCache()
+	text := page
+	for i := -1; i < len(edits); i++ {
+		if i >= 0 {
+			text = edits[i](text)
+		}
+		d := newDocument("file:///lab/p.md", int32(i+2), analyze.MarkdownPage, []byte(text))
+		reps, err := e.AnalyzeLines(context.Background(), []analyze.Source{{Name: "p.md", Kind: analyze.MarkdownPage, Text: []byte(text)}})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if _, _, ok := reps[0].Lines(); !ok {
+			t.Fatal("AnalyzeLines gave a Report without Lines")
+		}
+		got := c.appendDiagnostics(nil, d, reps[0])
+		full := reps[0].Full()
+		want := appendPublishDiagnostics(nil, &publishDiagnosticsParams{URI: d.uri, Diagnostics: lspDiagnostics(d, full)})
+		var g, w []any
+		if err := json.Unmarshal(got, &g); err != nil {
+			t.Fatalf("edit %d: not JSON: %v\n%s", i, err, got)
+		}
+		var wp struct{ Diagnostics []any }
+		_ = json.Unmarshal(want, &wp)
+		w = wp.Diagnostics
+		if len(w) == 0 {
+			t.Fatalf("edit %d: the page draws no diagnostics; the test needs some", i)
+		}
+		canon := func(xs []any) []string {
+			out := make([]string, len(xs))
+			for k, x := range xs {
+				b, _ := json.Marshal(x)
+				out[k] = string(b)
+			}
+			sort.Strings(out)
+			return out
+		}
+		if !reflect.DeepEqual(canon(g), canon(w)) {
+			t.Errorf("edit %d:\ncached %s\nfresh  %s", i, got, want)
 		}
 	}
 }

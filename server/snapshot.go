@@ -69,7 +69,9 @@ func (s *snapshot) run() {
 			s.reports, s.err = nil, &panicError{what: "analysis of " + string(s.key), value: r, stack: stack()}
 		}
 	}()
-	reps, err := s.engine.Analyze(s.ctx, s.sources())
+	// Publications read each line's findings (Report.Lines); requests
+	// ask for the full Report (snapshot.report).
+	reps, err := s.engine.AnalyzeLines(s.ctx, s.sources())
 	switch {
 	case s.ctx.Err() != nil:
 		s.err = errSuperseded
@@ -82,13 +84,13 @@ func (s *snapshot) run() {
 	}
 }
 
-// report returns the analysis of document i of the snapshot.
+// report returns the full analysis of document i of the snapshot.
 func (s *snapshot) report(ctx context.Context, i int) (*analyze.Report, error) {
 	reps, err := s.analysis(ctx)
 	if err != nil {
 		return nil, err
 	}
-	return reps[i], nil
+	return reps[i].Full(), nil
 }
 
 // world is everything the requests may read: the latest snapshot of every
