@@ -113,3 +113,27 @@ func FuzzLabel(f *testing.F) {
 		_ = Undecideds(m)
 	})
 }
+
+// BenchmarkLabelCyclohexane labels 1,4-disubstituted cyclohexanes, the
+// costliest kind in the `walden stereo --file` benchmark: both ring
+// branches are constitutionally identical, so every rule explores the
+// whole ring and the other centre needs an auxiliary descriptor.
+func BenchmarkLabelCyclohexane(b *testing.B) {
+	var ms []*molecule.Molecule
+	for _, s := range []string{
+		"[C@H]1(C=C)CC[C@H](c2ccccc2)CC1", "[C@@H]1(N)CC[C@@H](CC(C)C)CC1",
+		"[C@H]1(Cl)CC[C@@H](C(=O)O)CC1", "[C@@H]1(OC)CC[C@H](C#N)CC1",
+	} {
+		m, err := smiles.Parse(s)
+		if err != nil {
+			b.Fatal(err)
+		}
+		ms = append(ms, m)
+	}
+	var l Labeller
+	b.ReportAllocs()
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		l.Label(ms[i%len(ms)])
+	}
+}

@@ -11,15 +11,12 @@ import (
 	"walden/grammar/notation"
 )
 
-// TestDocExamples: every step shown in docs/notation.md (the reaction
-// blocks of the page, and those quoted inside its ~~~markdown example)
+// TestDocExamples: every step shown in README.md (the reaction blocks of
+// the page, and those quoted inside its ~~~markdown example)
 // parses without a syntax error, so the documentation cannot drift from
 // the parser.
 func TestDocExamples(t *testing.T) {
-	doc, err := os.ReadFile("../../docs/notation.md")
-	if os.IsNotExist(err) {
-		t.Skip("docs/notation.md is not in this tree")
-	}
+	doc, err := os.ReadFile("../../README.md")
 	require.NoError(t, err)
 	texts := [][]byte{doc}
 	if i := bytes.Index(doc, []byte("~~~markdown\n")); i >= 0 {
