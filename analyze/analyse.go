@@ -79,6 +79,7 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 	pred := e.predict(in)
 	if in.electrophileFirst != "" {
 		pred.reasons = append([]string{in.electrophileFirst}, pred.reasons...)
+		pred.sources = append([]string{""}, pred.sources...)
 	}
 	cautions := cautionsFor(in)
 	found := placeFindings(in, pred)

@@ -93,8 +93,12 @@ func stepHover(in *stepInput, pred *prediction, cs []caution.Caution, h *handOn,
 	}
 	if len(pred.reasons) > 0 {
 		b.WriteString("\n**Why**\n\n")
-		for _, r := range pred.reasons {
-			fmt.Fprintf(&b, "- %s\n", r)
+		for i, r := range pred.reasons {
+			src := ""
+			if i < len(pred.sources) && pred.sources[i] != "" {
+				src = " — *" + pred.sources[i] + "*"
+			}
+			fmt.Fprintf(&b, "- %s%s\n", r, src)
 		}
 	}
 	if len(cs) > 0 {

@@ -68,6 +68,7 @@ func fromOutcome(o *outcome.Outcome, solventIndex map[int]int) *prediction {
 	}
 	for _, r := range o.Reasons {
 		p.reasons = append(p.reasons, r.Text)
+		p.sources = append(p.sources, r.Source)
 	}
 	for _, c := range o.Stereo {
 		p.stereo = append(p.stereo, stereoChange{atom: c.Atom, before: c.Before, after: c.After, outcome: string(c.Change), letterChanged: c.LetterChanged, why: c.Why})
