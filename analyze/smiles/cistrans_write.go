@@ -42,7 +42,7 @@ func (w *writer) cisTransMarks() {
 	for _, ci := range order {
 		ct := m.CisTrans[ci]
 		for s := range 2 {
-			w.chooseMark(ct.Ends[s])
+			w.chooseMark(ct.Ends[s], ct.Refs[s])
 		}
 	}
 	// Per marked bond: the configuration it first belongs to and its
@@ -173,15 +173,13 @@ func (w *writer) validCisTrans(ct molecule.CisTrans) bool {
 	return ct.Config == molecule.Together || ct.Config == molecule.Opposite
 }
 
-// chooseMark marks one single bond at end, unless one is marked already.
-// It prefers a neighbour that is not itself the end of an unconfigured
-// double bond, where a mark on each side would be read as a configuration
-// that was never given, and then the neighbour written first. The choice
-// must not depend on which reference the input happened to record, or
-// the canonical form would depend on how the input was written.
-func (w *writer) chooseMark(end int) {
+// chooseMark marks one single bond at end for the configuration with
+// reference ref, unless one is marked already. It prefers a neighbour
+// that is not itself the end of an unconfigured double bond, where a mark
+// on each side would be read as a configuration that was never given.
+func (w *writer) chooseMark(end, ref int) {
 	m := w.m
-	best, bestScore, bestPos := -1, -1, int32(0)
+	best, bestScore := -1, -1
 	for _, e := range m.Edges(end) {
 		if m.Bonds[e.Bond].Order != 1 {
 			continue
@@ -191,10 +189,13 @@ func (w *writer) chooseMark(end int) {
 		}
 		score := 0
 		if !w.freeDouble(e.Atom) {
+			score += 2
+		}
+		if e.Atom == ref {
 			score++
 		}
-		if p := w.pos[e.Atom]; score > bestScore || score == bestScore && p < bestPos {
-			best, bestScore, bestPos = e.Bond, score, p
+		if score > bestScore {
+			best, bestScore = e.Bond, score
 		}
 	}
 	if best >= 0 {
