@@ -70,7 +70,8 @@ type digraph struct {
 	root    int32 // current root
 	rule6   int32 // atom preferred by rule 6, -1 when none
 	limit   int
-	cache   []sortEntry // by node*numSeqs + rule sequence: the node's ranked out edges in arena
+	cache   []sortEntry // by node*cacheSlots + 2*rule sequence + 1 when not deep: the node's ranked out edges in arena
+	first   []sortEntry // by node: its out edges ranked by rule 1a alone (firstOrder); start -1 when that leaves a tie
 	arena   []int32
 	rootGen uint32            // counts reroots, for the cache
 	auxGen  uint32            // counts changes of auxiliary descriptors and the rule 6 reference
@@ -78,6 +79,8 @@ type digraph struct {
 	auxMemo []auxMark         // by node: whether its branch has auxiliary descriptors
 	ties    map[[2]int32]bool // pairs of edges at the origin tied by the constitutional rules
 	path    []uint64          // by node, mol.words words: the atoms on the path from the origin
+
+	explored map[exploreKey]int8 // answers of explore by the constitutional rules
 }
 
 // reset starts a new digraph rooted at atom.
@@ -89,9 +92,11 @@ func (g *digraph) reset(v *view, atom int, limit int) {
 	g.rule6 = -1
 	g.limit = limit
 	g.cache = g.cache[:0]
+	g.first = g.first[:0]
 	g.arena = g.arena[:0]
 	g.auxMemo = g.auxMemo[:0]
 	clear(g.ties)
+	clear(g.explored)
 	z := int32(v.m.Atoms[atom].Element)
 	g.nodes = append(g.nodes, node{atom: int32(atom), up: -1, made: -1, dist: 1, zNum: z, zDen: 1, first: -1, last: -1})
 	g.root = 0

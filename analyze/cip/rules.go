@@ -149,24 +149,45 @@ func (g *digraph) explore(r rule, a, b int32) int {
 		r.id == rule6 && g.rule6 < 0:
 		return 0
 	}
+	// The constitutional rules see only the atoms, the bonds and which
+	// node is the root, so their answer for a pair of edges holds until
+	// the next reroot; a ranking asks it again for every rule sequence.
+	var key exploreKey
+	if r.id <= rule2 {
+		key = exploreKey{a, b, g.rootKey(), r.id}
+		if c, ok := g.explored[key]; ok {
+			return int(c)
+		}
+	}
+	c := g.exploreDeep(r, a, b)
+	if r.id <= rule2 {
+		if g.explored == nil {
+			g.explored = make(map[exploreKey]int8)
+		}
+		g.explored[key] = int8(c)
+	}
+	return c
+}
+
+// exploreKey names one constitutional comparison for the explore memo.
+type exploreKey struct {
+	a, b int32
+	root uint32
+	rule ruleID
+}
+
+// exploreDeep is explore past the far ends of a and b themselves.
+func (g *digraph) exploreDeep(r rule, a, b int32) int {
 	seq := explorer(r)
 	qa := append(g.buf(), a)
 	qb := append(g.buf(), b)
-	sa, sb := g.buf(), g.buf()
 	defer func() {
 		g.put(qa)
 		g.put(qb)
-		g.put(sa)
-		g.put(sb)
 	}()
-	var as, bs []int32
 	for pos := 0; pos < len(qa) && pos < len(qb); pos++ {
 		na, nb := g.edges[qa[pos]].end, g.edges[qb[pos]].end
-		sa = g.out(na, sa[:0])
-		sb = g.out(nb, sb[:0])
-		g.rank(na, sa, false, seq)
-		g.rank(nb, sb, false, seq)
-		as, bs = sa, sb
+		as, bs := g.nearOut(na, seq), g.nearOut(nb, seq)
 		for i := 0; i < len(as) && i < len(bs); i++ {
 			if g.nodes[g.edges[as[i]].end].zNum == 0 || g.nodes[g.edges[bs[i]].end].zNum == 0 {
 				return 0
@@ -239,7 +260,8 @@ func (g *digraph) rank(n int32, es []int32, deep bool, seq *ruleSeq) (unique, ps
 	}
 	unique = true
 	enantio := 0
-	var seen [][3]int32 // comparisons made, for the recount below
+	var seenTmp [16][3]int32
+	seen := seenTmp[:0] // comparisons made, for the recount below
 	for i := 1; i < len(es); i++ {
 		for j := i; j > 0; j-- {
 			c := g.ligands(seq, es[j-1], es[j], deep)
@@ -326,8 +348,25 @@ func (g *digraph) groups(seq *ruleSeq, es []int32) [][]int32 {
 // rules depend only on which node is the root, the others also on the
 // auxiliary descriptors and the rule 6 reference. The slice must not be
 // modified.
-func (g *digraph) sortedOut(n int32, seq *ruleSeq) []int32 {
-	k := int(n)*numSeqs + int(seq.id)
+func (g *digraph) sortedOut(n int32, seq *ruleSeq) []int32 { return g.ordered(n, seq, true) }
+
+// nearOut returns the edges leaving n ranked highest first by seq
+// looking at their far ends only, the order in which explore compares a
+// sphere before it looks deeper. Cached like sortedOut, on the same
+// terms: the comparisons see nothing the cache keys leave out.
+func (g *digraph) nearOut(n int32, seq *ruleSeq) []int32 { return g.ordered(n, seq, false) }
+
+// ordered is sortedOut (deep) and nearOut (not deep).
+func (g *digraph) ordered(n int32, seq *ruleSeq, deep bool) []int32 {
+	if seq.rules[0] == (rule{rule1a, None}) {
+		if es, ok := g.firstOrder(n); ok {
+			return es
+		}
+	}
+	k := int(n)*cacheSlots + int(seq.id)*2
+	if !deep {
+		k++
+	}
 	rk := g.rootKey()
 	if k < len(g.cache) {
 		c := g.cache[k]
@@ -335,18 +374,68 @@ func (g *digraph) sortedOut(n int32, seq *ruleSeq) []int32 {
 			return g.arena[c.start:c.end:c.end]
 		}
 	}
-	es := g.out(n, g.buf())
-	g.rank(n, es, true, seq)
+	// A node has few out edges: rank them on the stack, not in a
+	// pooled slice whose handling costs more than the ranking.
+	var tmp [8]int32
+	es := g.out(n, tmp[:0])
+	g.rank(n, es, deep, seq)
+	return g.store(k, es)
+}
+
+// firstOrder returns the edges leaving n ranked by rule 1a on their far
+// ends alone, when that leaves no tie but between implicit hydrogens.
+// Such an order is the one every rule sequence that starts with rule 1a
+// gives, deep or not: rule 1a decides every other pair first, and no
+// rule can tell two implicit hydrogens apart (see rankByFirst). It
+// depends only on the root, so it is worked out once per node and root
+// however many sequences and auxiliary descriptors ask for it.
+func (g *digraph) firstOrder(n int32) ([]int32, bool) {
+	rk := g.rootKey()
+	if int(n) < len(g.first) {
+		if c := g.first[n]; c.root == rk {
+			if c.start < 0 {
+				return nil, false
+			}
+			return g.arena[c.start:c.end:c.end], true
+		}
+	}
+	for len(g.first) <= int(n) {
+		g.first = append(g.first, sortEntry{root: ^uint32(0)})
+	}
+	var tmp [8]int32
+	es := g.out(n, tmp[:0])
+	if _, ok := g.rankByFirst(es, rule{rule1a, None}); !ok {
+		g.first[n] = sortEntry{rk, 0, -1, -1}
+		return nil, false
+	}
 	start := int32(len(g.arena))
 	g.arena = append(g.arena, es...)
-	g.put(es)
-	for len(g.cache) <= k {
-		g.cache = append(g.cache, sortEntry{root: ^uint32(0)})
+	end := int32(len(g.arena))
+	g.first[n] = sortEntry{rk, 0, start, end}
+	return g.arena[start:end:end], true
+}
+
+// store copies es into the arena as cache entry k.
+func (g *digraph) store(k int, es []int32) []int32 {
+	start := int32(len(g.arena))
+	g.arena = append(g.arena, es...)
+	if len(g.cache) <= k {
+		// Room for every slot of the node at once.
+		grown := (k/cacheSlots + 1) * cacheSlots
+		old := len(g.cache)
+		g.cache = append(g.cache, make([]sortEntry, grown-old)...)
+		for i := old; i < grown; i++ {
+			g.cache[i].root = ^uint32(0)
+		}
 	}
 	end := int32(len(g.arena))
-	g.cache[k] = sortEntry{rk, g.auxGen, start, end}
+	g.cache[k] = sortEntry{g.rootKey(), g.auxGen, start, end}
 	return g.arena[start:end:end]
 }
+
+// cacheSlots counts the slots of the ordering cache for one node: two
+// per rule sequence, deep and not.
+const cacheSlots = 2 * numSeqs
 
 // sortEntry records a cached ordering, arena[start:end], made with the
 // root and auxiliary descriptors of the given generations.
