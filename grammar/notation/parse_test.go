@@ -128,7 +128,7 @@ func TestValid(t *testing.T) {
 		{"2) @1 + NaN3, DMF", "label:2 | R:@1 | R:NaN3 | C:DMF"},
 		{"2. equiv NaN3 + CCBr", "R:NaN3[2 eq] | R:CCBr"},
 		{"CCBr + NaN3, THF/water (4:1), KOtBu (1.0 M in THF)", "R:CCBr | R:NaN3 | C:mix(THF,water;4:1) | C:KOtBu(1.0 M in THF)"},
-		// The forms docs/notation.md promises.
+		// The forms README.md promises.
 		{"CCBr + NaN3, MeOH / CH2Cl2 1:9 v/v, 60 ℃, 0 to 25 °C, o/n", "R:CCBr | R:NaN3 | C:mix(MeOH,CH2Cl2;1:9) | C:[60 °C] | C:[0 °C to 25 °C] | C:[overnight]"},
 		{"CCBr + 2× NaN3, at 60 °C, 298 K, 1 atm, 250 mg, 5 mL, 2 M, 60 oC, 3 hours", "R:CCBr | R:NaN3[2 eq] | C:[60 °C] | C:[298 K] | C:[1 atm] | C:[250 mg] | C:[5 mL] | C:[2 M] | C:[60 °C] | C:[3 h]"},
 		{"CCBr + NaN3 (1.5 eq, 3.2 mmol), r.t., for 2 h, 2 days, 30 s", "R:CCBr | R:NaN3[1.5 eq][3.2 mmol] | C:[rt] | C:[2 h] | C:[2 d] | C:[30 s]"},
