@@ -10,8 +10,8 @@ type prediction struct {
 	mechanism    string // "SN2", "SN1", "E2", "E1" or "none"
 	distribution []share
 	products     []product // the major product first
-	reasons      []string // what each rule contributed, in words
-	sources      []string // the published source of each reason ("" where none)
+	reasons      []string  // what each rule contributed, in words
+	sources      []string  // the published source of each reason ("" where none)
 	findings     []chemFinding
 	stereo       []stereoChange
 	reacting     int // substrate atom that reacts; -1 when none
