@@ -42,7 +42,7 @@ func (w *writer) cisTransMarks() {
 	for _, ci := range order {
 		ct := m.CisTrans[ci]
 		for s := range 2 {
-			w.chooseMark(ct.Ends[s], ct.Refs[s])
+			w.chooseMark(ct.Ends[s], ct.Refs[s], ct.Ends[1-s])
 		}
 	}
 	// Per marked bond: the configuration it first belongs to and its
@@ -176,10 +176,22 @@ func (w *writer) validCisTrans(ct molecule.CisTrans) bool {
 // chooseMark marks one single bond at end for the configuration with
 // reference ref, unless one is marked already. It prefers a neighbour
 // that is not itself the end of an unconfigured double bond, where a mark
-// on each side would be read as a configuration that was never given.
-func (w *writer) chooseMark(end, ref int) {
+// on each side would be read as a configuration that was never given;
+// then, at a plain sp2 end (one or two single-bonded neighbours, none of
+// them the far end), the neighbour written first, so that the marks do not
+// depend on which reference the input happened to record; elsewhere the
+// reference itself.
+func (w *writer) chooseMark(end, ref, other int) {
 	m := w.m
-	best, bestScore := -1, -1
+	singles, plain := 0, true
+	for _, e := range m.Edges(end) {
+		if m.Bonds[e.Bond].Order == 1 {
+			singles++
+			plain = plain && e.Atom != other
+		}
+	}
+	plain = plain && singles <= 2
+	best, bestScore, bestPos := -1, -1, int32(0)
 	for _, e := range m.Edges(end) {
 		if m.Bonds[e.Bond].Order != 1 {
 			continue
@@ -191,11 +203,12 @@ func (w *writer) chooseMark(end, ref int) {
 		if !w.freeDouble(e.Atom) {
 			score += 2
 		}
-		if e.Atom == ref {
+		if !plain && e.Atom == ref {
 			score++
 		}
-		if score > bestScore {
-			best, bestScore = e.Bond, score
+		p := w.pos[e.Atom]
+		if score > bestScore || plain && score == bestScore && p < bestPos {
+			best, bestScore, bestPos = e.Bond, score, p
 		}
 	}
 	if best >= 0 {
