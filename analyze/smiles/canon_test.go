@@ -25,6 +25,8 @@ var handSet = []string{
 	"C/C=C/C=C/C",
 	"C/C=C\\C=C/C",
 	"C/C=C/C(=C/C)/C=C/C",
+	"CCC/C(=C/C)/C=C/C",  // branched diene: a mark shared by both double bonds
+	"CCC/C(=C\\C)/C=C/C", // its (Z) isomer at the branched double bond
 	"F/C=C/F",
 	"F/C=C\\F",
 	"C/1=C/CCCCCC1",
