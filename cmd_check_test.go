@@ -3,37 +3,18 @@ package main
 import (
 	"bytes"
 	"encoding/json"
-	"flag"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+	"walden/internal/golden"
 )
-
-var update = flag.Bool("update", false, "rewrite golden files")
 
 // runCmd runs walden with args and returns stdout, stderr and the exit code.
 func runCmd(args ...string) (string, string, int) {
 	var out, errOut bytes.Buffer
 	code := run(args, strings.NewReader(""), &out, &errOut)
 	return out.String(), errOut.String(), code
-}
-
-func goldenFile(t *testing.T, file, got string) {
-	t.Helper()
-	if *update {
-		if err := os.WriteFile(file, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(file)
-	if err != nil {
-		t.Fatalf("%v (run go test -run %s -update to create it)", err, t.Name())
-	}
-	if string(want) != got {
-		t.Errorf("output differs from %s; run with -update and review the diff with git.\ngot:\n%s", file, got)
-	}
 }
 
 // TestCheckDemo checks the bundled demo notebook — the README's first
@@ -47,7 +28,7 @@ func TestCheckDemo(t *testing.T) {
 			if code != exitFindings {
 				t.Errorf("exit code %d, want %d (the demo holds errors on purpose)", code, exitFindings)
 			}
-			goldenFile(t, filepath.Join("testdata", "check", f.file), out)
+			golden.Check(t, filepath.Join("testdata", "check", f.file), out)
 		})
 	}
 }

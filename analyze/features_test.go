@@ -2,7 +2,6 @@ package analyze
 
 import (
 	"context"
-	"flag"
 	"fmt"
 	"os"
 	"path/filepath"
@@ -10,11 +9,10 @@ import (
 	"sort"
 	"strings"
 	"testing"
+	"walden/internal/golden"
 
 	"walden/grammar/source"
 )
-
-var update = flag.Bool("update", false, "rewrite golden files")
 
 // TestFeatures runs every notebook under testdata/features. Each is a
 // small document: step lines, and after a step a comment line
@@ -63,7 +61,7 @@ func TestFeatures(t *testing.T) {
 				t.Fatal(err)
 			}
 			checkWants(t, text, reps[0], gaps, seen)
-			golden(t, f+".golden", describe(text, reps[0]))
+			golden.Check(t, f+".golden", describe(text, reps[0]))
 		})
 	}
 }
@@ -203,45 +201,6 @@ func edits(text []byte, es []Edit) string {
 		fmt.Fprintf(&b, " %q→%q", text[e.Span.Start:e.Span.End], e.NewText)
 	}
 	return b.String()
-}
-
-// golden compares got with the golden file, or rewrites it with -update.
-func golden(t *testing.T, file, got string) {
-	t.Helper()
-	if *update {
-		if err := os.WriteFile(file, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(file)
-	if err != nil {
-		t.Fatalf("%v (run with -update to create it)", err)
-	}
-	if string(want) != got {
-		t.Errorf("%s differs (run with -update and check the diff):\n%s", file, diffLines(string(want), got))
-	}
-}
-
-// diffLines shows the first lines that differ.
-func diffLines(a, b string) string {
-	al, bl := strings.Split(a, "\n"), strings.Split(b, "\n")
-	var out strings.Builder
-	n := 0
-	for i := 0; i < max(len(al), len(bl)) && n < 12; i++ {
-		var x, y string
-		if i < len(al) {
-			x = al[i]
-		}
-		if i < len(bl) {
-			y = bl[i]
-		}
-		if x != y {
-			fmt.Fprintf(&out, "line %d\n  want: %s\n  got:  %s\n", i+1, x, y)
-			n++
-		}
-	}
-	return out.String()
 }
 
 // needOutcome skips tests that need predictions while the outcome

@@ -1,7 +1,6 @@
 package server
 
 import (
-	"flag"
 	"fmt"
 	"os"
 	"path/filepath"
@@ -10,13 +9,12 @@ import (
 	"strings"
 	"testing"
 	"unicode/utf8"
+	"walden/internal/golden"
 
 	"go.lsp.dev/protocol"
 
 	"walden/grammar/source"
 )
-
-var update = flag.Bool("update", false, "rewrite golden files")
 
 // Feature tests read like documents. Each testdata/features/*.txtar holds
 // pages, plan files or notebook cells with inline markers under the lines
@@ -191,7 +189,7 @@ func runFeature(t *testing.T, file string) {
 		showSymbols(t, c, d, &out)
 		showTokens(t, c, d, &out)
 	}
-	golden(t, strings.TrimSuffix(file, ".txtar")+".golden", out.String())
+	golden.Check(t, strings.TrimSuffix(file, ".txtar")+".golden", out.String())
 }
 
 // checkDiagnostics matches published diagnostics with @diag markers.
@@ -370,24 +368,6 @@ func indent(s string) string {
 		b.WriteString("  | " + l + "\n")
 	}
 	return b.String()
-}
-
-// golden compares got with the golden file, or rewrites it with -update.
-func golden(t *testing.T, path, got string) {
-	t.Helper()
-	if *update {
-		if err := os.WriteFile(path, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-		return
-	}
-	want, err := os.ReadFile(path)
-	if err != nil {
-		t.Fatalf("%v (run go test -update to create it)", err)
-	}
-	if string(want) != got {
-		t.Errorf("%s differs from what the server shows (go test -update rewrites it):\n--- want\n%s\n--- got\n%s", path, want, got)
-	}
 }
 
 // archive is a txtar-style file: a comment, then files each introduced

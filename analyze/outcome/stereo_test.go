@@ -1,14 +1,11 @@
 package outcome
 
 import (
-	"flag"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+	"walden/internal/golden"
 )
-
-var update = flag.Bool("update", false, "rewrite golden files")
 
 // TestStereoChanges: SN2 inverts geometrically and the CIP letter may or
 // may not change; SN1 loses the configuration; sulfonylation retains it.
@@ -98,15 +95,7 @@ func TestStereoAgainstRDKit(t *testing.T) {
 		// RDKit will read it.
 		lines = append(lines, s.substrate+"\t"+p.SMILES+"\t"+letterList(mustParse(t, p.SMILES)))
 	}
-	golden := filepath.Join("testdata", "sn2_stereo.golden")
-	got := strings.Join(lines, "\n") + "\n"
-	if *update {
-		os.WriteFile(golden, []byte(got), 0o644)
-	}
-	want, _ := os.ReadFile(golden)
-	if string(want) != got {
-		t.Errorf("golden mismatch (run with -update after checking):\n%s", got)
-	}
+	golden.Check(t, filepath.Join("testdata", "sn2_stereo.golden"), strings.Join(lines, "\n")+"\n")
 	// The oracle: RDKit's CIP letters for the predicted product SMILES.
 	out, err := rdkitLetters(lines)
 	if err != nil {

@@ -1,16 +1,14 @@
 package reagents
 
 import (
-	"flag"
 	"fmt"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
 	"unicode/utf8"
+	"walden/internal/golden"
 )
-
-var update = flag.Bool("update", false, "rewrite golden files")
 
 // dumpLab writes what a lab file did to the dictionary: every error, then
 // every entry that came from the file, for the golden test.
@@ -53,19 +51,7 @@ func TestLabFileGolden(t *testing.T) {
 	}
 	d, errs := Load(text, "lab.names")
 	got := dumpLab(d, errs)
-	golden := filepath.Join("testdata", "lab.golden")
-	if *update {
-		if err := os.WriteFile(golden, []byte(got), 0o644); err != nil {
-			t.Fatal(err)
-		}
-	}
-	want, err := os.ReadFile(golden)
-	if err != nil {
-		t.Fatalf("%v (run go test -update to create it)", err)
-	}
-	if got != string(want) {
-		t.Errorf("lab file output differs from %s (run with -update after checking):\n%s", golden, got)
-	}
+	golden.Check(t, filepath.Join("testdata", "lab.golden"), got)
 }
 
 // Small lab files, each with the errors expected: "line:col: substring".

@@ -3,8 +3,10 @@ package smiles
 import (
 	"fmt"
 	"math/rand"
+	"path/filepath"
 	"strings"
 	"testing"
+	"walden/internal/golden"
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
@@ -166,5 +168,5 @@ func TestCanonicalGolden(t *testing.T) {
 	for _, s := range append(append([]string(nil), handSet...), suiteSMILESOrNone()...) {
 		fmt.Fprintf(&b, "%s\t%s\n", s, canonicalOf(t, s))
 	}
-	checkGolden(t, "canonical.golden", b.String())
+	golden.Check(t, filepath.Join("testdata", "canonical.golden"), b.String())
 }

@@ -1,20 +1,17 @@
 package smiles
 
 import (
-	"flag"
 	"fmt"
-	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+	"walden/internal/golden"
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
 
 	"walden/analyze/molecule"
 )
-
-var update = flag.Bool("update", false, "rewrite golden files")
 
 // hydrogens lists the total hydrogen count of every atom.
 func hydrogens(m *molecule.Molecule) []int {
@@ -208,7 +205,7 @@ func TestParseErrors(t *testing.T) {
 		{"C→C", []molecule.Span{sp(1, 4)}},
 		{"H", []molecule.Span{sp(0, 1)}},
 	}
-	var golden strings.Builder
+	var msgs strings.Builder
 	for _, tt := range tests {
 		t.Run(tt.smiles, func(t *testing.T) {
 			_, err := Parse(tt.smiles)
@@ -221,28 +218,16 @@ func TestParseErrors(t *testing.T) {
 			require.Error(t, err)
 			list := err.(ErrorList)
 			var spans []molecule.Span
-			fmt.Fprintf(&golden, "%q\n", tt.smiles)
+			fmt.Fprintf(&msgs, "%q\n", tt.smiles)
 			for _, e := range list {
 				spans = append(spans, e.Span)
-				fmt.Fprintf(&golden, "\t%d-%d %s\n", e.Span.Start, e.Span.End, e.Msg)
+				fmt.Fprintf(&msgs, "\t%d-%d %s\n", e.Span.Start, e.Span.End, e.Msg)
 				assert.LessOrEqual(t, e.Span.End, len(tt.smiles))
 			}
 			assert.Equal(t, tt.spans, spans)
 		})
 	}
-	checkGolden(t, "errors.golden", golden.String())
-}
-
-func checkGolden(t *testing.T, name, got string) {
-	t.Helper()
-	path := filepath.Join("testdata", name)
-	if *update {
-		require.NoError(t, os.WriteFile(path, []byte(got), 0o644))
-		return
-	}
-	want, err := os.ReadFile(path)
-	require.NoError(t, err, "run go test -update to create %s", path)
-	assert.Equal(t, string(want), got)
+	golden.Check(t, filepath.Join("testdata", "errors.golden"), msgs.String())
 }
 
 // Hostile input is refused by the documented limits, with a message.

@@ -2,12 +2,12 @@ package notebook
 
 import (
 	"bytes"
-	"flag"
 	"fmt"
 	"os"
 	"path/filepath"
 	"strings"
 	"testing"
+	"walden/internal/golden"
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
@@ -15,8 +15,6 @@ import (
 	"walden/grammar/notation"
 	"walden/grammar/source"
 )
-
-var update = flag.Bool("update", false, "rewrite golden files")
 
 // TestGolden reads every sample host under grammar/testdata and writes
 // what was found (blocks, step lines, comments, errors, each step's parse
@@ -48,14 +46,7 @@ func TestGolden(t *testing.T) {
 			} else {
 				writePage(&out, "", data, Find(f, data), nil)
 			}
-			golden := path + ".golden"
-			if *update {
-				require.NoError(t, os.WriteFile(golden, out.Bytes(), 0o644))
-				return
-			}
-			want, err := os.ReadFile(golden)
-			require.NoError(t, err, "run go test -update to create it")
-			assert.Equal(t, string(want), out.String())
+			golden.Check(t, path+".golden", out.String())
 		})
 	}
 	assert.GreaterOrEqual(t, n, 8)
