@@ -68,14 +68,7 @@ func (c *lineCache) appendFlat(b []byte, d *document, ds []analyze.Diagnostic) [
 	m := d.mapper
 	text := m.Text()
 	n := m.LineCount()
-	b = append(b, '[')
-	first := true
-	comma := func() {
-		if !first {
-			b = append(b, ',')
-		}
-		first = false
-	}
+	a := jsonArray{b: append(b, '[')}
 	k, groups := 0, 0
 	for i := 0; i < len(ds); {
 		start := ds[i].Span.Start
@@ -95,27 +88,40 @@ func (c *lineCache) appendFlat(b []byte, d *document, ds []analyze.Diagnostic) [
 		i = j
 		if !within(group, line) {
 			for x := range group {
-				comma()
-				dg := lspDiagnostic(d, &group[x])
-				b = appendDiagnostic(b, &dg)
+				a.fresh(d, &group[x])
 			}
 			continue
 		}
 		groups++
-		ent := c.lines[string(text[line.Start:line.End])]
-		switch {
-		case ent == nil || !ent.same(group, line.Start):
-			ent = c.encode(d, group, line.Start, k)
-			c.lines[string(text[line.Start:line.End])] = ent
-		case ent.line != k:
-			ent.move(k)
-		}
-		ent.used = c.gen
-		comma()
-		b = append(b, ent.json...)
+		a.raw(c.byText(d, text, group, line, k).json)
 	}
 	c.sweep(groups)
-	return append(b, ']')
+	return append(a.b, ']')
+}
+
+// jsonArray writes the elements of a JSON array of diagnostics.
+type jsonArray struct {
+	b       []byte
+	started bool
+}
+
+// raw appends an element already encoded.
+func (a *jsonArray) raw(elem []byte) {
+	if a.started {
+		a.b = append(a.b, ',')
+	}
+	a.started = true
+	a.b = append(a.b, elem...)
+}
+
+// fresh converts and encodes f as the next element.
+func (a *jsonArray) fresh(d *document, f *analyze.Diagnostic) {
+	if a.started {
+		a.b = append(a.b, ',')
+	}
+	a.started = true
+	dg := lspDiagnostic(d, f)
+	a.b = appendDiagnostic(a.b, &dg)
 }
 
 // sweep drops the entries the last publication did not use once they
@@ -223,26 +229,14 @@ func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindi
 	m := d.mapper
 	text := m.Text()
 	n := m.LineCount()
-	b = append(b, '[')
-	first := true
-	comma := func() {
-		if !first {
-			b = append(b, ',')
-		}
-		first = false
-	}
-	fresh := func(f *analyze.Diagnostic) {
-		comma()
-		dg := lspDiagnostic(d, f)
-		b = appendDiagnostic(b, &dg)
-	}
+	a := jsonArray{b: append(b, '[')}
 	k, o, used := 0, 0, 0
 	for _, l := range lines {
 		if len(l.Own) == 0 && len(l.Extra) == 0 {
 			continue
 		}
 		for o < len(other) && other[o].Span.Start <= l.Span.Start {
-			fresh(&other[o])
+			a.fresh(d, &other[o])
 			o++
 		}
 		for k+1 < n && m.Line(k+1).Start <= l.Span.Start {
@@ -258,12 +252,11 @@ func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindi
 			}
 			if within(group, line) {
 				used++
-				comma()
-				b = append(b, c.byText(d, text, group, line, k).json...)
+				a.raw(c.byText(d, text, group, line, k).json)
 				continue
 			}
 			for x := range group {
-				fresh(&group[x])
+				a.fresh(d, &group[x])
 			}
 			continue
 		}
@@ -275,7 +268,7 @@ func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindi
 			group := joined(l)
 			if !within(group, line) {
 				for x := range group {
-					fresh(&group[x])
+					a.fresh(d, &group[x])
 				}
 				continue
 			}
@@ -289,14 +282,13 @@ func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindi
 		}
 		ent.used = c.gen
 		used++
-		comma()
-		b = append(b, ent.json...)
+		a.raw(ent.json)
 	}
 	for ; o < len(other); o++ {
-		fresh(&other[o])
+		a.fresh(d, &other[o])
 	}
 	c.sweep(used)
-	return append(b, ']')
+	return append(a.b, ']')
 }
 
 // joined returns a line's findings in host positions, sorted by start as
