@@ -4,14 +4,13 @@ import (
 	"fmt"
 	"strings"
 
-	"walden/analyze/reagents"
-
 	"walden/grammar/source"
 )
 
 // Complete returns suggestions at pos: step labels where a reference
 // ("@…") is being written, reagent and solvent names elsewhere in a step
-// line. Each suggestion replaces the word being typed.
+// line. Each suggestion replaces the word being typed. A Report made by
+// AnalyzeLines answers without Full.
 func (r *Report) Complete(pos source.Pos) []Completion {
 	ps := r.stepAt(pos)
 	if ps == nil {
@@ -69,7 +68,7 @@ func (d *dictionary) complete(prefix string, span source.Span) []Completion {
 		if n.Entry.Reagent == nil {
 			kind = CompleteSolvent
 		}
-		out = append(out, Completion{Label: n.Text, Kind: kind, Span: span, Detail: n.Detail, Doc: reagents.Doc(n.Entry)})
+		out = append(out, Completion{Label: n.Text, Kind: kind, Span: span, Detail: n.Detail, Doc: n.Doc})
 	}
 	return out
 }

@@ -13,7 +13,8 @@ import (
 // (its CIP label and role), a reagent or solvent (its data and sources),
 // or the step (predicted product, configuration before and after,
 // mechanism, distribution, reasons, cautions, configuration through the
-// plan). ok is false where there is nothing to say.
+// plan). ok is false where there is nothing to say. A Report made by
+// AnalyzeLines answers without Full.
 func (r *Report) Hover(pos source.Pos) (markdown string, span source.Span, ok bool) {
 	ps := r.stepAt(pos)
 	if ps == nil {

@@ -33,18 +33,21 @@ type lineParts struct {
 	full *Report
 }
 
-// Lines returns the findings of every step line of a Report made by
-// AnalyzeLines, in page order, and the diagnostics not tied to a step
-// line (an unterminated fence, say), in host positions. Together they are
-// Full().Diagnostics. ok is false for a Report made otherwise.
-func (r *Report) Lines() (lines []LineFindings, other []Diagnostic, ok bool) {
+// AppendLines appends to dst the findings of every step line of a Report
+// made by AnalyzeLines, in page order, and returns them with the
+// diagnostics not tied to a step line (an unterminated fence, say), in
+// host positions. Together they are Full().Diagnostics. A caller that
+// publishes after every edit passes the slice of its last call, so that
+// a publication allocates nothing per line. ok is false for a Report made
+// otherwise.
+func (r *Report) AppendLines(dst []LineFindings) (lines []LineFindings, other []Diagnostic, ok bool) {
 	if r.lines == nil {
-		return nil, nil, false
+		return dst, nil, false
 	}
-	lines = make([]LineFindings, len(r.steps))
+	lines = slices.Grow(dst, len(r.steps))
 	for i := range r.steps {
 		ps := &r.steps[i]
-		lines[i] = LineFindings{Span: ps.span, Own: ps.res.diags, Extra: ps.extra}
+		lines = append(lines, LineFindings{Span: ps.span, Own: ps.res.diags, Extra: ps.extra})
 	}
 	return lines, r.lines.finds, true
 }

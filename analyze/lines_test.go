@@ -45,7 +45,19 @@ func TestAnalyzeLinesMatchesAnalyze(t *testing.T) {
 			if !reflect.DeepEqual(full.Diagnostics, want[k].Diagnostics) {
 				t.Errorf("edit %d source %d: diagnostics differ from Analyze's:\n%s", i, k, firstDiff(full.Diagnostics, want[k].Diagnostics))
 			}
-			lines, other, ok := got[k].Lines()
+			// Hover and Complete read no Steps or Diagnostics: the Report
+			// as AnalyzeLines made it answers as the full one does.
+			for _, st := range want[k].Steps {
+				for pos := st.Span.Start; pos <= st.Span.End; pos += 7 {
+					if g, w := fmt.Sprint(got[k].Hover(pos)), fmt.Sprint(want[k].Hover(pos)); g != w {
+						t.Fatalf("edit %d source %d: hover at %d is\n%s\nwant\n%s", i, k, pos, g, w)
+					}
+					if g, w := got[k].Complete(pos), want[k].Complete(pos); !reflect.DeepEqual(g, w) {
+						t.Fatalf("edit %d source %d: completions at %d differ: %v, want %v", i, k, pos, g, w)
+					}
+				}
+			}
+			lines, other, ok := got[k].AppendLines(nil)
 			if !ok {
 				t.Fatalf("edit %d: a Report of AnalyzeLines has no Lines", i)
 			}
@@ -73,7 +85,7 @@ func TestAnalyzeLinesMatchesAnalyze(t *testing.T) {
 			}
 		}
 	}
-	if _, _, ok := (&Report{}).Lines(); ok {
+	if _, _, ok := (&Report{}).AppendLines(nil); ok {
 		t.Error("a Report made by Analyze claims Lines")
 	}
 }

@@ -26,7 +26,7 @@ var completionKinds = map[analyze.CompletionKind]protocol.CompletionItemKind{
 }
 
 func (s *Server) completion(ctx context.Context, p *protocol.CompletionParams) (any, error) {
-	t, ok, err := targetOf(ctx, p.TextDocument.URI)
+	t, ok, err := pointTargetOf(ctx, p.TextDocument.URI)
 	if !ok {
 		return nil, err
 	}

@@ -63,6 +63,8 @@ func TestMalformedFrames(t *testing.T) {
 		{"no Content-Length", "Content-Type: application/json\r\n\r\n", "-32700 message header has no Content-Length"},
 		{"bad Content-Length", "Content-Length: twelve\r\n\r\n", "-32700 bad message header"},
 		{"binary body", frame("\x00\xff\xfe garbage"), "-32700 malformed JSON"},
+		{"trailing data", frame(`{"jsonrpc":"2.0","id":7,"method":"shutdown"} {"more":1}`), `-32700 malformed JSON at byte 45`},
+		{"response without id", frame(`{"jsonrpc":"2.0","result":{}}`), "-32600 invalid JSON-RPC message: a response without an id"},
 	} {
 		t.Run(tc.name, func(t *testing.T) {
 			c := start(t)

@@ -14,7 +14,7 @@ func init() {
 }
 
 func (s *Server) hover(ctx context.Context, p *protocol.HoverParams) (any, error) {
-	t, ok, err := targetOf(ctx, p.TextDocument.URI)
+	t, ok, err := pointTargetOf(ctx, p.TextDocument.URI)
 	if !ok {
 		return nil, err
 	}

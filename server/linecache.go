@@ -29,6 +29,8 @@ type lineCache struct {
 	// For Reports with Lines: by the identity of a line's own findings,
 	// which the Engine keeps the same while the line's result is the same.
 	owned map[*analyze.Diagnostic]*encodedLine
+
+	found []analyze.LineFindings // reused by every publication
 }
 
 // encodedLine is the JSON of one line's diagnostics.
@@ -55,10 +57,14 @@ func newLineCache() *lineCache {
 // r.Diagnostics are sorted by start (analyze.Report's promise); a
 // diagnostic reaching outside its line is encoded afresh every time.
 func (c *lineCache) appendDiagnostics(b []byte, d *document, r *analyze.Report) []byte {
-	if lines, other, ok := r.Lines(); ok {
-		return c.appendLines(b, d, lines, other)
+	lines, other, ok := r.AppendLines(c.found[:0])
+	if !ok {
+		return c.appendFlat(b, d, r.Diagnostics)
 	}
-	return c.appendFlat(b, d, r.Diagnostics)
+	b = c.appendLines(b, d, lines, other)
+	clear(lines) // keep the buffer, not the findings
+	c.found = lines
+	return b
 }
 
 // appendFlat appends the JSON array of ds, sorted by start, caching by
@@ -205,8 +211,18 @@ func (e *encodedLine) same(group []analyze.Diagnostic, base source.Pos) bool {
 
 // move rewrites the entry's line numbers for line.
 func (e *encodedLine) move(line int) {
-	old := strconv.AppendInt(nil, int64(e.line), 10)
-	num := strconv.AppendInt(nil, int64(line), 10)
+	var ob, nb [20]byte
+	old := strconv.AppendInt(ob[:0], int64(e.line), 10)
+	num := strconv.AppendInt(nb[:0], int64(line), 10)
+	if len(num) == len(old) {
+		// The usual case, a line moved by a few: the numbers are
+		// overwritten where they stand.
+		for _, at := range e.cuts {
+			copy(e.json[at:], num)
+		}
+		e.line = line
+		return
+	}
 	out := make([]byte, 0, len(e.json)+len(e.cuts)*(len(num)-len(old)))
 	prev := 0
 	for x, at := range e.cuts {

@@ -103,7 +103,7 @@ func TestLineCacheMatchesFullReport(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		if _, _, ok := reps[0].Lines(); !ok {
+		if _, _, ok := reps[0].AppendLines(nil); !ok {
 			t.Fatal("AnalyzeLines gave a Report without Lines")
 		}
 		got := c.appendDiagnostics(nil, d, reps[0])

@@ -21,11 +21,22 @@ type target struct {
 // empty answer rather than an error: editors send requests for every
 // Markdown file.
 func targetOf(ctx context.Context, uri protocol.DocumentURI) (t target, ok bool, err error) {
+	return targetBy(ctx, uri, (*snapshot).report)
+}
+
+// pointTargetOf is targetOf for the requests about one position (hover,
+// completion), which read the Report as published: the first of them
+// after an edit does not wait for Report.Full to lay out the whole page.
+func pointTargetOf(ctx context.Context, uri protocol.DocumentURI) (t target, ok bool, err error) {
+	return targetBy(ctx, uri, (*snapshot).lineReport)
+}
+
+func targetBy(ctx context.Context, uri protocol.DocumentURI, report func(*snapshot, context.Context, int) (*analyze.Report, error)) (t target, ok bool, err error) {
 	snap, i, found := worldOf(ctx).lookup(uri)
 	if !found {
 		return target{}, false, nil
 	}
-	rep, err := snap.report(ctx, i)
+	rep, err := report(snap, ctx, i)
 	if err != nil {
 		return target{}, false, err
 	}

@@ -86,11 +86,22 @@ func (s *snapshot) run() {
 
 // report returns the full analysis of document i of the snapshot.
 func (s *snapshot) report(ctx context.Context, i int) (*analyze.Report, error) {
+	rep, err := s.lineReport(ctx, i)
+	if err != nil {
+		return nil, err
+	}
+	return rep.Full(), nil
+}
+
+// lineReport returns the analysis of document i as the publisher reads
+// it, without the Steps and Diagnostics that Report.Full builds for the
+// whole page: Hover and Complete need neither.
+func (s *snapshot) lineReport(ctx context.Context, i int) (*analyze.Report, error) {
 	reps, err := s.analysis(ctx)
 	if err != nil {
 		return nil, err
 	}
-	return reps[i].Full(), nil
+	return reps[i], nil
 }
 
 // world is everything the requests may read: the latest snapshot of every

@@ -154,15 +154,31 @@ func (s *stream) readFrame() ([]byte, int64, error) {
 	return body, total, nil
 }
 
+// wireMessage holds every member a JSON-RPC message may have.
+type wireMessage struct {
+	JSONRPC string          `json:"jsonrpc"`
+	ID      json.RawMessage `json:"id"`
+	Method  *string         `json:"method"`
+	Params  json.RawMessage `json:"params"`
+	Result  json.RawMessage `json:"result"`
+	Error   *jsonrpc2.Error `json:"error"`
+}
+
 // decodeMessage reads a JSON-RPC message, turning every failure into a
 // frameError that names the problem and, where it can, the request's id.
+//
+// It reads the body once, without copying it (the body is the frame's
+// own), and builds the message from the parts: jsonrpc2.DecodeMessage
+// would set aside a 32 kB buffer for every message, a small hover request
+// included, and the garbage collector would pay for it during edits.
 func decodeMessage(body []byte) (jsonrpc2.Message, error) {
-	var probe struct {
-		JSONRPC string          `json:"jsonrpc"`
-		ID      json.RawMessage `json:"id"`
-		Method  *string         `json:"method"`
+	var w wireMessage
+	rest, err := segjson.Parse(body, &w, segjson.ZeroCopy)
+	if trail := bytes.TrimLeft(rest, " \t\r\n"); err == nil && len(trail) > 0 {
+		return nil, &frameError{code: codeParseError,
+			msg: fmt.Sprintf("malformed JSON at byte %d of the message: %q after the message object", len(body)-len(trail), truncate(string(trail), 20))}
 	}
-	if err := json.Unmarshal(body, &probe); err != nil {
+	if err != nil {
 		var syn *json.SyntaxError
 		if errors.As(err, &syn) {
 			return nil, &frameError{code: codeParseError,
@@ -170,22 +186,61 @@ func decodeMessage(body []byte) (jsonrpc2.Message, error) {
 		}
 		return nil, &frameError{code: codeInvalidRequest, msg: "not a JSON-RPC message object: " + err.Error()}
 	}
-	id := probe.ID
+	id := w.ID
+	if isNull(id) {
+		id = nil
+	}
 	if len(id) > 0 && !validID(id) {
 		return nil, &frameError{code: codeInvalidRequest, msg: fmt.Sprintf("request id %s is neither a number nor a string", truncate(string(id), 40))}
 	}
-	if probe.JSONRPC != jsonrpc2.Version {
+	if w.JSONRPC != jsonrpc2.Version {
 		return nil, &frameError{code: codeInvalidRequest, id: id,
-			msg: fmt.Sprintf("jsonrpc is %q, want %q", probe.JSONRPC, jsonrpc2.Version)}
+			msg: fmt.Sprintf("jsonrpc is %q, want %q", w.JSONRPC, jsonrpc2.Version)}
 	}
-	if probe.Method != nil && *probe.Method == "" {
+	if w.Method != nil && *w.Method == "" {
 		return nil, &frameError{code: codeInvalidRequest, id: id, msg: "method is empty"}
 	}
-	msg, err := jsonrpc2.DecodeMessage(body)
+	var params any
+	if !isNull(w.Params) {
+		params = w.Params
+	}
+	var msg jsonrpc2.Message
+	switch {
+	case w.Method != nil && id == nil:
+		msg, err = jsonrpc2.NewNotification(*w.Method, params)
+	case w.Method != nil:
+		msg, err = jsonrpc2.NewCall(decodeID(id), *w.Method, params)
+	case id == nil:
+		return nil, &frameError{code: codeInvalidRequest, msg: "invalid JSON-RPC message: a response without an id"}
+	default:
+		var result any
+		if !isNull(w.Result) {
+			result = w.Result
+		}
+		var rerr error
+		if w.Error != nil {
+			rerr = w.Error
+		}
+		msg, err = jsonrpc2.NewResponse(decodeID(id), result, rerr)
+	}
 	if err != nil {
 		return nil, &frameError{code: codeInvalidRequest, id: id, msg: "invalid JSON-RPC message: " + err.Error()}
 	}
 	return msg, nil
+}
+
+// isNull reports whether raw is absent or the JSON null.
+func isNull(raw json.RawMessage) bool { return len(raw) == 0 || string(raw) == "null" }
+
+// decodeID reads an id validID accepted.
+func decodeID(raw json.RawMessage) jsonrpc2.ID {
+	var n int32
+	if json.Unmarshal(raw, &n) == nil {
+		return jsonrpc2.NewNumberID(n)
+	}
+	var s string
+	_ = json.Unmarshal(raw, &s)
+	return jsonrpc2.NewStringID(s)
 }
 
 // validID reports whether raw is a JSON number that fits jsonrpc2's int32

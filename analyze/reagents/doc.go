@@ -11,6 +11,7 @@ import (
 type Name struct {
 	Text   string // the name as written in the dictionary
 	Detail string // one line: "reagent · nucleophile · [N-]=[N+]=[N-]"
+	Doc    string // Doc(Entry), made once for every name of the entry
 	Entry  Entry
 }
 
@@ -18,9 +19,15 @@ type Name struct {
 // sorted case-insensitively.
 func (d *Dictionary) Names() []Name {
 	out := make([]Name, 0, len(d.names))
+	docs := make(map[Entry]string) // an entry has several names
 	for _, n := range d.names {
 		e := d.entry(n.ref)
-		out = append(out, Name{Text: n.text, Detail: Detail(e), Entry: e})
+		doc, ok := docs[e]
+		if !ok {
+			doc = Doc(e)
+			docs[e] = doc
+		}
+		out = append(out, Name{Text: n.text, Detail: Detail(e), Doc: doc, Entry: e})
 	}
 	sort.SliceStable(out, func(i, j int) bool {
 		a, b := strings.ToLower(out[i].Text), strings.ToLower(out[j].Text)
