@@ -23,7 +23,7 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 		}
 		res.diags = append(res.diags, Diagnostic{Code: code, Severity: Error, Message: er.Msg, Span: er.Span})
 	}
-	r := &resolver{dict: e.dict, refs: refs}
+	r := &resolver{dict: e.dict, memo: e.memo, refs: refs}
 	in := r.build(p)
 	res.tokens = r.tokens
 	res.diags = append(res.diags, r.diags...)
@@ -71,17 +71,17 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 		res.hover = fmt.Sprintf("**not analysed**: '%s' could not be read; fix it and the prediction follows.", bad)
 		res.inlay = "not analysed"
 		res.pred = &Prediction{Mechanism: "none", NotAnalysed: fmt.Sprintf("'%s' could not be read", bad)}
-		res.diags = append(res.diags, placeCautions(in, cautionsFor(in))...)
+		res.diags = append(res.diags, placeCautions(in, e.memo.cautions(in))...)
 		return res
 	}
 	e.applyDefaults(in)
-	takeElectrophile(in)
+	takeElectrophile(in, e.memo)
 	pred := e.predict(in)
 	if in.electrophileFirst != "" {
 		pred.reasons = append([]string{in.electrophileFirst}, pred.reasons...)
 		pred.sources = append([]string{""}, pred.sources...)
 	}
-	cautions := cautionsFor(in)
+	cautions := e.memo.cautions(in)
 	found := placeFindings(in, pred)
 	if hasCode(r.diags, CodeUnknownName) || hasCode(r.diags, CodeSMILES) {
 		// An unreadable condition may well be the solvent: "no solvent

@@ -163,6 +163,9 @@ func celsius(v float64, unit string) (float64, bool) {
 
 func (r *resolver) token(s source.Span, k TokenKind) {
 	if s.End > s.Start {
+		if r.tokens == nil {
+			r.tokens = make([]Token, 0, 16) // a line has about a dozen: one allocation
+		}
 		r.tokens = append(r.tokens, Token{Span: s, Kind: k})
 	}
 }

@@ -7,7 +7,8 @@ import (
 
 // cautionsFor asks the caution rules about a step.
 func cautionsFor(in *stepInput) []caution.Caution {
-	st := &caution.Step{TempC: in.tempC, HasTemp: in.hasTemp, Reflux: in.reflux, Sealed: in.sealed}
+	st := &caution.Step{TempC: in.tempC, HasTemp: in.hasTemp, Reflux: in.reflux, Sealed: in.sealed,
+		Substances: make([]caution.Substance, 0, 1+len(in.reagents)+len(in.solvents))}
 	add := func(role caution.Role, i int, s *substance) {
 		if s == nil {
 			return
@@ -18,7 +19,13 @@ func cautionsFor(in *stepInput) []caution.Caution {
 			c.Acid = s.reagent.Roles&reagents.Acid != 0
 		}
 		if s.solvent != nil {
-			c.Names = append(c.Names, s.solvent.Names...)
+			if len(c.Names) == 0 {
+				c.Names = s.solvent.Names // shared, read only: no copy
+			} else {
+				// A new list: appending to the reagent's own would write
+				// into the dictionary's shared array.
+				c.Names = append(append(make([]string, 0, len(c.Names)+len(s.solvent.Names)), c.Names...), s.solvent.Names...)
+			}
 			if s.solvent.BoilingC.Known {
 				c.BoilingC, c.HasBoilingC = s.solvent.BoilingC.V, true
 			}

@@ -4,7 +4,6 @@ import (
 	"fmt"
 
 	"walden/analyze/molecule"
-	"walden/analyze/perceive"
 )
 
 // takeElectrophile makes the alkylating agent the substrate when the
@@ -16,11 +15,11 @@ import (
 // never taken: CBr4 and CCl4 are the Appel reagents that activate the
 // alcohol, not the electrophile (Appel, Angew. Chem. Int. Ed. 1975, 14,
 // 801, from memory).
-func takeElectrophile(in *stepInput) {
+func takeElectrophile(in *stepInput, m *memo) {
 	if in.substrate == nil || in.substrate.mol == nil {
 		return
 	}
-	if len(perceive.PerceiveSubstrate(in.substrate.mol).Good()) > 0 {
+	if m.substrate(in.substrate.mol).HasGood() {
 		return
 	}
 	best, bestRank := -1, 0.0
@@ -28,7 +27,7 @@ func takeElectrophile(in *stepInput) {
 		if r.mol == nil {
 			continue
 		}
-		for _, s := range perceive.PerceiveSubstrate(r.mol).Good() {
+		for _, s := range m.substrate(r.mol).Good() {
 			if halogens(r.mol, s.Carbon) > 1 {
 				continue
 			}

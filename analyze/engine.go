@@ -26,6 +26,7 @@ type Engine struct {
 	cfg      Config
 	dict     *dictionary
 	disabled map[string]bool
+	memo     *memo // chemistry shared by steps that differ only in part
 
 	mu    sync.Mutex
 	lines map[string]*lineEntry // by line text
@@ -74,7 +75,7 @@ const (
 
 // NewEngine returns an Engine using cfg.
 func NewEngine(cfg Config) *Engine {
-	e := &Engine{cfg: cfg, dict: newDictionary(cfg), disabled: map[string]bool{}, lines: map[string]*lineEntry{},
+	e := &Engine{cfg: cfg, dict: newDictionary(cfg), disabled: map[string]bool{}, memo: newMemo(), lines: map[string]*lineEntry{},
 		lastGen: map[string]uint64{}, sweepAt: sweepMin}
 	for _, c := range cfg.Disabled {
 		e.disabled[strings.TrimSpace(c)] = true
@@ -326,11 +327,12 @@ func (e *Engine) entries(srcs []Source, found [][]foundLine, ents [][]*lineEntry
 		return gen
 	}
 	e.parsed.Add(int64(len(misses)))
-	fresh := make([]*lineEntry, len(misses))
+	texts := make([][]byte, len(misses))
 	for k, m := range misses {
 		l := found[m.src][m.line]
-		fresh[k] = newLineEntry(srcs[m.src].Text[l.start:l.end], gen)
+		texts[k] = srcs[m.src].Text[l.start:l.end]
 	}
+	fresh := parseNew(texts, gen)
 	e.mu.Lock()
 	for k, m := range misses {
 		ent := fresh[k]

@@ -38,11 +38,7 @@ func (e *Engine) predict(in *stepInput) *prediction {
 		solventIndex[len(st.Solvents)] = i
 		st.Solvents = append(st.Solvents, outcome.SolventShare{Solvent: s.solvent})
 	}
-	o := runOutcome(st)
-	if o == nil {
-		return &prediction{notAnalysed: "the outcome rules gave no answer", reacting: -1, mechanism: "none"}
-	}
-	return fromOutcome(o, solventIndex)
+	return e.memo.prediction(st, solventIndex)
 }
 
 // fromOutcome converts the outcome engine's answer.

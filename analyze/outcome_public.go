@@ -50,14 +50,25 @@ type PathwayShare struct {
 // public converts the package's prediction into the exported form.
 func (p *prediction) public(through []string) *Prediction {
 	out := &Prediction{Mechanism: orNone(p.mechanism), NotAnalysed: p.notAnalysed, Reasons: p.reasons}
-	for _, x := range p.products {
-		out.Products = append(out.Products, PredictedProduct{SMILES: x.smiles, Fraction: x.fraction, Major: x.major, Mechanism: x.mechanism})
+	// Each list is made at its size (nil when empty, as appending made
+	// them): every step of a page makes one.
+	if len(p.products) > 0 {
+		out.Products = make([]PredictedProduct, len(p.products))
+		for i, x := range p.products {
+			out.Products[i] = PredictedProduct{SMILES: x.smiles, Fraction: x.fraction, Major: x.major, Mechanism: x.mechanism}
+		}
 	}
-	for _, c := range p.stereo {
-		out.Stereo = append(out.Stereo, StereoChange{Atom: c.atom, Before: c.before, After: c.after, Outcome: c.outcome, LetterChanged: c.letterChanged, Why: c.why})
+	if len(p.stereo) > 0 {
+		out.Stereo = make([]StereoChange, len(p.stereo))
+		for i, c := range p.stereo {
+			out.Stereo[i] = StereoChange{Atom: c.atom, Before: c.before, After: c.after, Outcome: c.outcome, LetterChanged: c.letterChanged, Why: c.why}
+		}
 	}
-	for _, s := range p.distribution {
-		out.Distribution = append(out.Distribution, PathwayShare{s.mechanism, s.fraction})
+	if len(p.distribution) > 0 {
+		out.Distribution = make([]PathwayShare, len(p.distribution))
+		for i, s := range p.distribution {
+			out.Distribution[i] = PathwayShare{s.mechanism, s.fraction}
+		}
 	}
 	out.Through = through
 	return out

@@ -14,6 +14,7 @@ import (
 // relative to the line.
 type resolver struct {
 	dict   *dictionary
+	memo   *memo              // SMILES read once per Engine
 	refs   map[string]*handOn // the labels visible to this step, with their products
 	diags  []Diagnostic
 	tokens []Token
@@ -51,18 +52,18 @@ func (r *resolver) substance(s *notation.Substance, term *notation.Term) *substa
 		return out
 	}
 	if s.Kind == notation.Word {
-		m, err := smiles.Parse(s.Text)
-		if err == nil {
-			out.mol, out.smiles, out.asSMILES = m, s.Text, true
+		rs := r.memo.readSMILES(r.dict, s.Text)
+		if rs.err == nil {
+			out.mol, out.smiles, out.asSMILES = rs.mol, s.Text, true
 			// A solvent or reagent written as SMILES is still that entry:
 			// "CN(C)C=O" is DMF to the outcome rules.
-			if e := r.dict.bySMILES(m); e.reagent != nil || e.solvent != nil {
+			if e := rs.entry; e.reagent != nil || e.solvent != nil {
 				out.reagent, out.solvent = e.reagent, e.solvent
 			}
 			return out
 		}
 		if looksLikeSMILES(s.Text) {
-			r.smilesErrors(s, err)
+			r.smilesErrors(s, rs.err)
 			return out
 		}
 	}

@@ -12,6 +12,7 @@ package caution
 import (
 	"sort"
 	"strings"
+	"sync"
 
 	"walden/analyze/molecule"
 )
@@ -85,11 +86,15 @@ func Rules() []Rule {
 // Find runs every rule on s and returns the cautions in rule order.
 func Find(s *Step) []Caution {
 	var out []Caution
-	for _, r := range Rules() {
+	for _, r := range sortedRules() {
 		out = append(out, r.Check(s)...)
 	}
 	return out
 }
+
+// sortedRules is Rules made once: every step of a page asks the rules,
+// and the list is complete once the package's init functions have run.
+var sortedRules = sync.OnceValue(Rules)
 
 // say builds a message: the finding, then the deferral.
 func say(parts ...string) string {
@@ -120,11 +125,24 @@ func (s Substance) display() string {
 // named reports whether any of the substance's names, or its text, equals
 // one of want (case-insensitive).
 func (s Substance) named(want ...string) bool {
-	for _, n := range append([]string{s.Text}, s.Names...) {
-		for _, w := range want {
-			if strings.EqualFold(strings.TrimSpace(n), w) {
-				return true
-			}
+	if equalsAny(s.Text, want) {
+		return true
+	}
+	for _, n := range s.Names {
+		if equalsAny(n, want) {
+			return true
+		}
+	}
+	return false
+}
+
+// equalsAny reports whether n, trimmed, equals one of want
+// (case-insensitive).
+func equalsAny(n string, want []string) bool {
+	n = strings.TrimSpace(n)
+	for _, w := range want {
+		if strings.EqualFold(n, w) {
+			return true
 		}
 	}
 	return false

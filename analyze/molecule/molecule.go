@@ -256,18 +256,19 @@ func (m *Molecule) RingBonds() []bool {
 	// Iterative Tarjan bridge finding: a bond is a bridge when the far
 	// side cannot reach back above it.
 	n := len(m.Atoms)
-	disc := make([]int, n)
-	low := make([]int, n)
+	both := make([]int, 2*n) // disc and low in one allocation
+	disc, low := both[:n:n], both[n:]
 	for i := range disc {
 		disc[i] = -1
 	}
 	type frame struct{ atom, viaBond, next int }
+	stack := make([]frame, 0, 16)
 	t := 0
 	for s := 0; s < n; s++ {
 		if disc[s] >= 0 {
 			continue
 		}
-		stack := []frame{{s, -1, 0}}
+		stack = append(stack[:0], frame{s, -1, 0})
 		disc[s], low[s] = t, t
 		t++
 		for len(stack) > 0 {

@@ -44,6 +44,9 @@ type Step struct {
 	Solvents  []SolventShare
 	TempC     *float64 // nil when not given
 	Reflux    bool
+	// Cache, when set, keeps what does not depend on the conditions
+	// between calls; see Cache for what the caller promises.
+	Cache *Cache
 }
 
 // Role says whether a product is the major one.

@@ -27,7 +27,7 @@ func Predict(st Step) (o Outcome) {
 		o.NotAnalysed = "no substrate"
 		return o
 	}
-	sub := perceive.PerceiveSubstrate(st.Substrate)
+	sub := st.Cache.Substrate(st.Substrate)
 	md := perceive.PerceiveMedium(st.Solvents, st.TempC, st.Reflux)
 	if md.Defaulted {
 		o.Findings = append(o.Findings, Finding{Code: CodeNoSolvent, Severity: Info, Message: "no solvent given: the prediction assumes " + perceive.DefaultSolvent, Parties: Parties{Reactant: -1, Solvent: -1}})
@@ -36,12 +36,12 @@ func Predict(st Step) (o Outcome) {
 	for i, r := range st.Reagents {
 		ionised[i] = r
 		if r.Mol != nil {
-			ionised[i].Mol = perceive.Ionise(r.Mol)
+			ionised[i].Mol = st.Cache.ionise(r.Mol)
 		}
 	}
 	st.Reagents = ionised
 	act := detectActivation(st.Reagents, md.Parts)
-	rg := perceive.PerceiveReagents(st.Reagents)
+	rg := st.Cache.perceiveReagents(st.Reagents)
 
 	// An acid that is only a salt former (an amine hydrochloride) does
 	// not activate anything when the substrate has a real leaving group.
@@ -72,7 +72,8 @@ func Predict(st Step) (o Outcome) {
 		return dehydrate(o, sub, &site, md)
 	}
 
-	c := &scoring{sub: sub, site: &site, md: md, act: act, can: [4]bool{true, true, true, true}}
+	c := &scoring{sub: sub, site: &site, md: md, act: act, can: [4]bool{true, true, true, true}, cache: st.Cache,
+		reasons: make([]Reason, 0, 2*len(Rules))} // a rule says a reason or two
 	switch {
 	case act.nu != nil:
 		c.nu, c.nuMol = act.nu, act.nuMol
@@ -80,7 +81,7 @@ func Predict(st Step) (o Outcome) {
 		c.nu = rg.Nucleophile
 		c.nuMol = st.Reagents[c.nu.Reactant].Mol
 	default:
-		c.nu, c.nuMol = solventNucleophile(md)
+		c.nu, c.nuMol = solventNucleophile(md, st.Cache)
 	}
 	if act.kind == actNone {
 		c.base = rg.Base
@@ -210,7 +211,7 @@ func poorLeaving(s perceive.Site) Finding {
 
 // solventNucleophile returns the solvent molecule that captures a cation
 // or attacks in solvolysis, or nil.
-func solventNucleophile(md perceive.Medium) (*perceive.Nucleophile, *molecule.Molecule) {
+func solventNucleophile(md perceive.Medium, cache *Cache) (*perceive.Nucleophile, *molecule.Molecule) {
 	bestShare := 0.0
 	var best string
 	for i, p := range md.Parts {
@@ -220,6 +221,15 @@ func solventNucleophile(md perceive.Medium) (*perceive.Nucleophile, *molecule.Mo
 	}
 	if best == "" {
 		return nil, nil
+	}
+	if cache != nil {
+		nu, m := cache.solventNucleophile(best)
+		if nu == nil {
+			return nil, nil
+		}
+		nu.FromSolvent = true
+		nu.Reactant = -1
+		return nu, m
 	}
 	m, err := smiles.Parse(best)
 	if err != nil {

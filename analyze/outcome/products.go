@@ -21,22 +21,20 @@ func products(o *Outcome, st Step, c *scoring) {
 		if !s.Possible || s.Fraction < minShare {
 			continue
 		}
-		switch s.Pathway {
-		case SN2:
-			if p := substitute(st.Substrate, c, false); p != nil {
+		var ps []Product
+		if c.cache != nil {
+			ps = c.cache.pathwayProducts(st.Substrate, c, s.Pathway)
+		} else {
+			ps = buildProducts(st.Substrate, c, s.Pathway)
+		}
+		for _, p := range ps {
+			switch s.Pathway {
+			case SN2, SN1:
 				p.Fraction = s.Fraction
-				out = append(out, *p)
-			}
-		case SN1:
-			if p := substitute(st.Substrate, c, true); p != nil {
-				p.Fraction = s.Fraction
-				out = append(out, *p)
-			}
-		case E2, E1:
-			for _, p := range eliminate(st.Substrate, c, s.Pathway) {
+			case E2, E1:
 				p.Fraction *= s.Fraction
-				out = append(out, p)
 			}
+			out = append(out, p)
 		}
 	}
 	sort.SliceStable(out, func(i, j int) bool { return out[i].Fraction > out[j].Fraction })
@@ -45,10 +43,6 @@ func products(o *Outcome, st Step, c *scoring) {
 		if i == 0 {
 			out[i].Role = Major
 		}
-		if out[i].Pathway == SN2 || out[i].Pathway == SN1 {
-			dropFalseCentre(out[i].Mol)
-		}
-		out[i].SMILES = smiles.Canonical(out[i].Mol)
 	}
 	// The same product by two pathways is listed once.
 	seen := map[string]int{}
@@ -62,6 +56,27 @@ func products(o *Outcome, st Step, c *scoring) {
 		kept = append(kept, p)
 	}
 	o.Products = kept
+}
+
+// buildProducts builds the products of pathway p, each with its share
+// within the pathway, its configuration settled and its canonical SMILES.
+func buildProducts(sub *molecule.Molecule, c *scoring, p Mechanism) []Product {
+	var out []Product
+	switch p {
+	case SN2, SN1:
+		if x := substitute(sub, c, p == SN1); x != nil {
+			out = append(out, *x)
+		}
+	case E2, E1:
+		out = eliminate(sub, c, p)
+	}
+	for i := range out {
+		if out[i].Pathway == SN2 || out[i].Pathway == SN1 {
+			dropFalseCentre(out[i].Mol)
+		}
+		out[i].SMILES = smiles.Canonical(out[i].Mol)
+	}
+	return out
 }
 
 // substitute replaces the leaving group by the nucleophile: with

@@ -45,6 +45,7 @@ type scoring struct {
 	can     [4]bool
 	reasons []Reason
 	rule    *Rule
+	cache   *Cache // nil when the caller keeps nothing between steps
 }
 
 func idx(p Mechanism) int {

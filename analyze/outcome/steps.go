@@ -47,7 +47,7 @@ func sulfonylate(o Outcome, st Step, sub *perceive.Substrate, act activation) Ou
 	o.Products = []Product{p}
 	o.Reasons = append(o.Reasons, Reason{Rule: "sulfonylation", Text: "the sulfonyl chloride esterifies the alcohol oxygen; the C–O bond does not break, so the configuration is retained and the sulfonate is a good leaving group for a later SN2 (with inversion)", Source: "Phillips, H. J. Chem. Soc. 1923, 123, 44; Tipson, R. S. J. Org. Chem. 1944, 9, 235"})
 	if perceive.TetrahedralAt(st.Substrate, site.Carbon) >= 0 {
-		before := label(st.Substrate, site.Carbon)
+		before := st.Cache.label(st.Substrate, site.Carbon)
 		after := label(out, idx[b.subMap[site.Carbon]])
 		o.Stereo = []StereoChange{{Atom: site.Carbon, Before: before, After: after, Change: Retained, LetterChanged: before != after && before != "" && after != ""}}
 	}

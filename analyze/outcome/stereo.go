@@ -28,7 +28,7 @@ func stereo(o *Outcome, sub *molecule.Molecule, c *scoring) {
 	if perceive.TetrahedralAt(sub, c.site.Carbon) < 0 {
 		return
 	}
-	before := label(sub, c.site.Carbon)
+	before := c.cache.label(sub, c.site.Carbon)
 	ch := StereoChange{Atom: c.site.Carbon, Before: before, Change: Lost}
 	mp := o.Major()
 	if mp != nil && mp.Pathway == SN2 && !degenerate(c) {
@@ -37,7 +37,7 @@ func stereo(o *Outcome, sub *molecule.Molecule, c *scoring) {
 		// find it as the tetrahedral centre whose refs changed: the
 		// builder keeps substrate order, so its index is the substrate
 		// index less the dropped atoms before it.
-		ch.After = label(mp.Mol, shifted(sub, c, c.site.Carbon))
+		ch.After = c.cache.label(mp.Mol, shifted(sub, c, c.site.Carbon))
 	}
 	ch.LetterChanged = ch.Before != "" && ch.After != "" && ch.Before != ch.After
 	if ch.Change == Lost {

@@ -1,7 +1,7 @@
 package perceive
 
 import (
-	"sort"
+	"slices"
 
 	"walden/analyze/molecule"
 )
@@ -155,14 +155,15 @@ func SymmetryClasses(m *molecule.Molecule) []uint64 {
 	}
 	next := make([]uint64, n)
 	buf := make([]uint64, 0, 8)
-	distinct := countDistinct(cls)
+	scratch := make([]uint64, n) // for countDistinct, one allocation for every round
+	distinct := countDistinct(cls, scratch)
 	for range n {
 		for i := range m.Atoms {
 			buf = buf[:0]
 			for _, e := range m.Edges(i) {
 				buf = append(buf, mix(cls[e.Atom]*7+uint64(m.Bonds[e.Bond].Order)))
 			}
-			sort.Slice(buf, func(x, y int) bool { return buf[x] < buf[y] })
+			slices.Sort(buf)
 			h := cls[i]
 			for _, v := range buf {
 				h = mix(h*1000003 ^ v)
@@ -170,7 +171,7 @@ func SymmetryClasses(m *molecule.Molecule) []uint64 {
 			next[i] = h
 		}
 		cls, next = next, cls
-		d := countDistinct(cls)
+		d := countDistinct(cls, scratch)
 		if d == distinct {
 			break
 		}
@@ -179,12 +180,20 @@ func SymmetryClasses(m *molecule.Molecule) []uint64 {
 	return cls
 }
 
-func countDistinct(v []uint64) int {
-	s := make(map[uint64]struct{}, len(v))
-	for _, x := range v {
-		s[x] = struct{}{}
+// countDistinct counts the distinct values of v, sorting a copy in
+// scratch (len(v) long) rather than building a set: it runs once per
+// refinement round of every perceived molecule.
+func countDistinct(v, scratch []uint64) int {
+	s := scratch[:len(v)]
+	copy(s, v)
+	slices.Sort(s)
+	n := 0
+	for i, x := range s {
+		if i == 0 || x != s[i-1] {
+			n++
+		}
 	}
-	return len(s)
+	return n
 }
 
 // mix is the 64-bit finaliser of SplitMix64 (Steele, Lea, Flood 2014).

@@ -114,6 +114,17 @@ func (s *Substrate) Good() []Site {
 	return out
 }
 
+// HasGood reports whether Good would return any site, without making
+// the list.
+func (s *Substrate) HasGood() bool {
+	for _, x := range s.Sites {
+		if !x.Leaving.Data.Poor && x.Flags.Has(Sp3) {
+			return true
+		}
+	}
+	return false
+}
+
 // PerceiveSubstrate finds every carbon of m bearing a leaving group (good,
 // poor, and on sp2 carbons for the diagnostics) and describes it.
 func PerceiveSubstrate(m *molecule.Molecule) *Substrate {

@@ -1,0 +1,175 @@
+package analyze
+
+import (
+	"sync"
+
+	"walden/analyze/caution"
+	"walden/analyze/molecule"
+	"walden/analyze/outcome"
+	"walden/analyze/perceive"
+	"walden/analyze/smiles"
+)
+
+// memo keeps, for one Engine, the chemistry that depends on only part of
+// a step, so that the thousands of steps of a page that differ only in
+// their temperature, label or amounts read, perceive and predict each
+// substance once. Steps of one page are mostly such variations.
+//
+// Everything kept is shared between steps and never changed: molecules
+// are read-only once built (the outcome rules build products as new
+// molecules and never write to a substrate or reagent, as the
+// dictionary's shared molecules already require), and so are the
+// perceptions and outcomes, which the callers only read. Keys hold the
+// molecules they name, so a pointer in a key cannot be reused by another
+// molecule while the entry lives.
+//
+// Each table is bounded: when it reaches memoMax entries it is emptied,
+// which costs a page larger than that some recomputation and never a
+// wrong answer. A memo is safe for concurrent use (prewarm analyses on
+// every core); two goroutines missing the same key both compute it, and
+// either answer serves.
+type memo struct {
+	mu         sync.Mutex
+	smiles     map[string]*readSMILES
+	chem       *outcome.Cache // perception, products and CIP letters by molecule
+	outcomes   map[outcomeKey]predicted
+	cautionsBy map[cautionKey][]caution.Caution
+}
+
+// memoMax bounds each table of a memo.
+const memoMax = 1 << 13
+
+// readSMILES is a SMILES text as read: its molecule or error, and the
+// dictionary entry with the same structure (a solvent or reagent written
+// as SMILES is still that entry).
+type readSMILES struct {
+	mol   *molecule.Molecule // nil when the text does not read
+	err   error
+	entry entry
+}
+
+// newMemo returns an empty memo; its tables are made on first use.
+func newMemo() *memo { return &memo{chem: outcome.NewCache()} }
+
+// put stores v under k in *t, making the table on first use and
+// emptying it first when it is full.
+func put[K comparable, V any](t *map[K]V, k K, v V) {
+	if *t == nil {
+		*t = map[K]V{}
+	} else if len(*t) >= memoMax {
+		clear(*t)
+	}
+	(*t)[k] = v
+}
+
+// readSMILES reads text as SMILES, once per text. The molecule is shared:
+// callers must not change it.
+func (m *memo) readSMILES(d *dictionary, text string) *readSMILES {
+	if m != nil {
+		m.mu.Lock()
+		r, ok := m.smiles[text]
+		m.mu.Unlock()
+		if ok {
+			return r
+		}
+	}
+	r := &readSMILES{}
+	r.mol, r.err = smiles.Parse(text)
+	if r.err == nil {
+		r.entry = d.bySMILES(r.mol)
+	} else {
+		r.mol = nil
+	}
+	if m != nil {
+		m.mu.Lock()
+		put(&m.smiles, text, r)
+		m.mu.Unlock()
+	}
+	return r
+}
+
+// substrate perceives mol as a substrate, once per molecule. The answer
+// is shared: callers must not change it.
+func (m *memo) substrate(mol *molecule.Molecule) *perceive.Substrate {
+	if m == nil {
+		return perceive.PerceiveSubstrate(mol)
+	}
+	return m.chem.Substrate(mol)
+}
+
+// memoParties is the most reagents and solvents a step may have for its
+// outcome to be kept; longer steps are rare and predicted each time.
+const memoParties = 4
+
+// outcomeKey is everything outcome.Predict reads from a Step: molecules
+// and dictionary entries by identity (the same text gives the same
+// shared molecule), numbers by value.
+type outcomeKey struct {
+	sub             *molecule.Molecule
+	reagents        [memoParties]outcome.Reactant
+	solvents        [memoParties]outcome.SolventShare
+	nReag, nSolv    int
+	tempC           float64
+	hasTemp, reflux bool
+}
+
+// predicted is a kept outcome and its conversion into the report's terms.
+type predicted struct {
+	o    *outcome.Outcome
+	pred *prediction
+}
+
+// prediction returns the outcome engine's answer for st in the report's
+// terms, predicting and converting it once per distinct step. The
+// prediction is the caller's own (a copy), but the slices, maps and
+// molecules in it are shared and must not be changed in place.
+func (m *memo) prediction(st *outcome.Step, solventIndex map[int]int) *prediction {
+	if m == nil || len(st.Reagents) > memoParties || len(st.Solvents) > memoParties {
+		if m != nil {
+			st.Cache = m.chem
+		}
+		return convert(runOutcome(st), solventIndex)
+	}
+	k := outcomeKey{sub: st.Substrate, nReag: len(st.Reagents), nSolv: len(st.Solvents), reflux: st.Reflux}
+	copy(k.reagents[:], st.Reagents)
+	copy(k.solvents[:], st.Solvents)
+	if st.TempC != nil {
+		k.tempC, k.hasTemp = *st.TempC, true
+	}
+	// The outcome's solvent indices are ours whenever every solvent of
+	// the step is a dictionary solvent, as resolution makes them; only
+	// then is the converted prediction the same for every step.
+	same := len(solventIndex) == len(st.Solvents)
+	for i, j := range solventIndex {
+		same = same && i == j
+	}
+	m.mu.Lock()
+	got, ok := m.outcomes[k]
+	m.mu.Unlock()
+	if ok && same {
+		p := *got.pred
+		return &p
+	}
+	if !ok {
+		st.Cache = m.chem
+		got.o = runOutcome(st)
+	}
+	p := convert(got.o, solventIndex)
+	if !same {
+		return p
+	}
+	got.pred = p
+	m.mu.Lock()
+	put(&m.outcomes, k, got)
+	m.mu.Unlock()
+	c := *p
+	return &c
+}
+
+// convert is fromOutcome, with the answer for an engine that gave none.
+func convert(o *outcome.Outcome, solventIndex map[int]int) *prediction {
+	if o == nil {
+		return &prediction{notAnalysed: "the outcome rules gave no answer", reacting: -1, mechanism: "none"}
+	}
+	return fromOutcome(o, solventIndex)
+}
