@@ -13,7 +13,7 @@ import (
 // analyseStep analyses one parsed line (positions relative to the line)
 // with the products of the labels it can see. It never fails: whatever
 // cannot be decided becomes a diagnostic.
-func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[string]*handOn) *stepResult {
+func (e *Engine) analyseStep(p notation.Step, perrs source.ErrorList, refs map[string]*handOn) *stepResult {
 	e.analysed.Add(1)
 	res := &stepResult{}
 	for _, er := range perrs {
@@ -27,8 +27,8 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 	in := r.build(p)
 	res.tokens = r.tokens
 	res.diags = append(res.diags, r.diags...)
-	if p.Label != nil {
-		res.label, res.labelSpan = p.Label.Name, p.Label.NameSpan
+	if l, ok := p.Label(); ok {
+		res.label, res.labelSpan = l.Name, l.NameSpan
 	}
 	res.refs = references(p)
 	res.slots = slots(p)
@@ -38,7 +38,7 @@ func (e *Engine) analyseStep(p *notation.Step, perrs source.ErrorList, refs map[
 	}
 	if in.substrate == nil {
 		res.diags = append(res.diags, Diagnostic{Code: CodeNoSubstrate, Severity: Error,
-			Message: "the step names no substrate; start the line with the substrate (SMILES, a name or @label)", Span: p.Span})
+			Message: "the step names no substrate; start the line with the substrate (SMILES, a name or @label)", Span: p.Span()})
 		return res
 	}
 	if !in.substrate.known() {
@@ -116,7 +116,8 @@ func unreadable(in *stepInput) string {
 // no conditions, no arrow.
 func declaration(in *stepInput) bool {
 	p := in.parsed
-	return len(p.Reactants) == 1 && len(p.Conditions) == 0 && p.Arrow == nil && in.substrate.mol != nil
+	_, arrow := p.Arrow()
+	return p.Reactants().Len() == 1 && p.Conditions().Len() == 0 && !arrow && in.substrate.mol != nil
 }
 
 // labelList writes CIP labels as "atom 2 S, atom 5 R".
@@ -149,7 +150,7 @@ func (e *Engine) applyDefaults(in *stepInput) {
 	}
 	if len(in.solvents) == 0 && e.cfg.DefaultSolvent != "" {
 		if sv := e.dict.asSolvent(e.cfg.DefaultSolvent); sv != nil {
-			in.solvents = append(in.solvents, &substance{text: e.cfg.DefaultSolvent, solvent: sv, span: source.Span{Start: in.parsed.Span.End, End: in.parsed.Span.End}})
+			in.solvents = append(in.solvents, &substance{text: e.cfg.DefaultSolvent, solvent: sv, span: source.Span{Start: in.parsed.End(), End: in.parsed.End()}})
 			in.solventAssumed = e.cfg.DefaultSolvent
 		}
 	}
@@ -159,37 +160,36 @@ func (e *Engine) applyDefaults(in *stepInput) {
 }
 
 // references lists the "@label" uses of a line, in order.
-func references(p *notation.Step) []refUse {
+func references(p notation.Step) []refUse {
 	var out []refUse
-	add := func(s *notation.Substance) {
-		if s == nil {
-			return
+	add := func(s notation.Substance) {
+		if s.Kind() == notation.Reference {
+			out = append(out, refUse{s.Text(), s.Span()})
 		}
-		if s.Kind == notation.Reference {
-			out = append(out, refUse{s.Text, s.Span})
-		}
-		for _, x := range s.Parts {
-			if x.Kind == notation.Reference {
-				out = append(out, refUse{x.Text, x.Span})
+	}
+	for _, ts := range [2]notation.Terms{p.Reactants(), p.Conditions()} {
+		for k := range ts.Len() {
+			s, ok := ts.At(k).Substance()
+			if !ok {
+				continue
+			}
+			add(s)
+			parts := s.Parts()
+			for j := range parts.Len() {
+				add(parts.At(j))
 			}
 		}
-	}
-	for _, t := range p.Reactants {
-		add(t.Substance)
-	}
-	for _, t := range p.Conditions {
-		add(t.Substance)
 	}
 	return out
 }
 
 // slots lists where completion applies: every substance of the line.
-func slots(p *notation.Step) []slot {
+func slots(p notation.Step) []slot {
 	var out []slot
-	for _, list := range [][]*notation.Term{p.Reactants, p.Conditions} {
-		for _, t := range list {
-			if t.Substance != nil {
-				out = append(out, slot{span: t.Substance.Span, reference: t.Substance.Kind == notation.Reference})
+	for _, ts := range [2]notation.Terms{p.Reactants(), p.Conditions()} {
+		for k := range ts.Len() {
+			if s, ok := ts.At(k).Substance(); ok {
+				out = append(out, slot{span: s.Span(), reference: s.Kind() == notation.Reference})
 			}
 		}
 	}
@@ -243,7 +243,7 @@ func smilesAtomSpan(s *substance, a int) (source.Span, bool) {
 // reagent or the solvent, with related information on the other parties.
 func placeFindings(in *stepInput, pred *prediction) []Diagnostic {
 	var out []Diagnostic
-	whole := in.parsed.Span
+	whole := in.parsed.Span()
 	for _, f := range pred.findings {
 		d := Diagnostic{Code: f.code, Severity: f.severity, Message: f.message, Span: whole}
 		placed := false

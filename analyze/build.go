@@ -16,26 +16,29 @@ var setupWords = map[string]bool{
 
 // build resolves a parsed step: the substrate, reagents, solvents,
 // temperature and written products, with tokens for every part.
-func (r *resolver) build(p *notation.Step) *stepInput {
+func (r *resolver) build(p notation.Step) *stepInput {
 	in := &stepInput{parsed: p}
-	if p.Mark != nil {
-		r.token(p.Mark.Span, TokenStatus)
+	if m, ok := p.Mark(); ok {
+		r.token(m.Span, TokenStatus)
 	}
-	if p.Label != nil {
-		r.token(p.Label.Span, TokenLabel)
+	if l, ok := p.Label(); ok {
+		r.token(l.Span, TokenLabel)
 	}
-	for i, t := range p.Reactants {
+	reactants := p.Reactants()
+	for i := range reactants.Len() {
+		t := reactants.At(i)
 		r.sep(t)
-		if t.Substance == nil {
+		sub, ok := t.Substance()
+		if !ok {
 			r.quantities(in, t)
 			continue
 		}
 		if i == 0 {
-			in.substrate = r.term(t, TokenSubstrate)
+			in.substrate = r.term(t, sub, TokenSubstrate)
 			r.quantities(in, t)
 			continue
 		}
-		s := r.term(t, TokenReagent)
+		s := r.term(t, sub, TokenReagent)
 		if s.solvent != nil && s.reagent == nil {
 			in.solvents = append(in.solvents, s)
 		} else {
@@ -43,104 +46,118 @@ func (r *resolver) build(p *notation.Step) *stepInput {
 		}
 		r.quantities(in, t)
 	}
-	for _, t := range p.Conditions {
+	conditions := p.Conditions()
+	for i := range conditions.Len() {
+		t := conditions.At(i)
 		r.sep(t)
 		r.quantities(in, t)
 		r.notes(in, t)
-		if t.Substance == nil {
+		sub, ok := t.Substance()
+		if !ok {
 			continue
 		}
-		if setupWords[strings.ToLower(t.Substance.Text)] {
+		if setupWords[strings.ToLower(sub.Text())] {
 			in.sealed = true
-			r.token(t.Substance.Span, TokenSetup)
+			r.token(sub.Span(), TokenSetup)
 			continue
 		}
-		parts := []*notation.Substance{t.Substance}
-		if t.Substance.Kind == notation.Mixture && len(t.Substance.Parts) > 0 {
-			parts = t.Substance.Parts
+		parts := sub.Parts()
+		n := parts.Len()
+		if sub.Kind() != notation.Mixture || n == 0 {
+			n = 1 // the substance stands for itself
 		}
-		for _, ps := range parts {
+		for k := range n {
+			ps := sub
+			if sub.Kind() == notation.Mixture && parts.Len() > 0 {
+				ps = parts.At(k)
+			}
 			s := r.substance(ps, t)
 			switch {
 			case s.solvent != nil:
 				in.solvents = append(in.solvents, s)
-				r.token(ps.Span, TokenSolvent)
+				r.token(s.span, TokenSolvent)
 			case s.ref != "":
 				in.reagents = append(in.reagents, s)
-				r.token(ps.Span, TokenReference)
+				r.token(s.span, TokenReference)
 			default:
 				in.reagents = append(in.reagents, s)
-				r.token(ps.Span, TokenReagent)
+				r.token(s.span, TokenReagent)
 			}
 		}
 	}
-	if p.Arrow != nil {
-		r.token(p.Arrow.Span, TokenOperator)
+	if a, ok := p.Arrow(); ok {
+		r.token(a.Span, TokenOperator)
 	}
-	for _, t := range p.Products {
+	products := p.Products()
+	for i := range products.Len() {
+		t := products.At(i)
 		r.sep(t)
-		if t.Substance != nil {
-			in.products = append(in.products, r.term(t, TokenProduct))
+		if sub, ok := t.Substance(); ok {
+			in.products = append(in.products, r.term(t, sub, TokenProduct))
 		}
 	}
-	if p.Comment != nil {
-		r.token(p.Comment.Span, TokenComment)
+	if c, ok := p.Comment(); ok {
+		r.token(c.Span, TokenComment)
 	}
 	return in
 }
 
-// term resolves the substance of a reactant or product term and records
-// its token (references keep their own kind).
-func (r *resolver) term(t *notation.Term, kind TokenKind) *substance {
-	s := r.substance(t.Substance, t)
+// term resolves sub, the substance of a reactant or product term t, and
+// records its token (references keep their own kind).
+func (r *resolver) term(t notation.Term, sub notation.Substance, kind TokenKind) *substance {
+	s := r.substance(sub, t)
 	if s.ref != "" {
 		kind = TokenReference
 	} else if kind == TokenReagent && s.solvent != nil && s.reagent == nil {
 		kind = TokenSolvent
 	}
-	r.token(t.Substance.Span, kind)
+	r.token(s.span, kind)
 	return s
 }
 
-func (r *resolver) sep(t *notation.Term) {
-	if t.Sep != nil {
-		r.token(t.Sep.Span, TokenOperator)
+func (r *resolver) sep(t notation.Term) {
+	if sep, ok := t.Sep(); ok {
+		r.token(sep.Span, TokenOperator)
 	}
 }
 
 // quantities records temperatures (the last one written wins, and the
 // upper end of a range: the temperature the mixture reaches) and tokens.
-func (r *resolver) quantities(in *stepInput, t *notation.Term) {
-	for _, q := range t.Quantities {
-		switch q.Kind {
+func (r *resolver) quantities(in *stepInput, t notation.Term) {
+	qs := t.Quantities()
+	for k := range qs.Len() {
+		q := qs.At(k)
+		switch q.Kind() {
 		case notation.Temperature:
-			r.token(q.Span, TokenTemperature)
+			r.token(q.Span(), TokenTemperature)
 			top := q
-			if q.To != nil {
-				top = q.To
+			if to, ok := q.To(); ok {
+				top = to
 			}
-			in.tempSpan = q.Span
+			in.tempSpan = q.Span()
 			switch {
-			case top.Word == "reflux":
+			case top.Word() == "reflux":
 				in.reflux, in.hasTemp = true, false
-			case top.Word == "rt":
+			case top.Word() == "rt":
 				in.tempC, in.hasTemp, in.reflux = roomTempC, true, false
-			case top.HasValue:
-				if c, ok := celsius(top.Value, top.Unit); ok {
+			case top.HasValue():
+				if c, ok := celsius(top.Value(), top.Unit()); ok {
 					in.tempC, in.hasTemp, in.reflux = c, true, false
 				}
 			}
 		case notation.Duration:
-			r.token(q.Span, TokenTime)
+			r.token(q.Span(), TokenTime)
 		default:
-			r.token(q.Span, TokenAmount)
+			r.token(q.Span(), TokenAmount)
 		}
 	}
 }
 
 // notes looks in parenthesised notes for a closed vessel.
-func (r *resolver) notes(in *stepInput, t *notation.Term) {
-	for _, n := range t.Notes {
+func (r *resolver) notes(in *stepInput, t notation.Term) {
+	ns := t.Notes()
+	for k := range ns.Len() {
+		n := ns.At(k)
 		if setupWords[strings.ToLower(strings.TrimSpace(n.Text))] {
 			in.sealed = true
 		}

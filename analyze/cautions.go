@@ -47,7 +47,7 @@ func cautionsFor(in *stepInput) []caution.Caution {
 func placeCautions(in *stepInput, cs []caution.Caution) []Diagnostic {
 	var out []Diagnostic
 	for _, c := range cs {
-		d := Diagnostic{Code: c.Code, Severity: Warning, Message: c.Message, Span: in.parsed.Span}
+		d := Diagnostic{Code: c.Code, Severity: Warning, Message: c.Message, Span: in.parsed.Span()}
 		for i, p := range c.Parties {
 			sp, name, ok := spanOf(in, cautionParty(p.Role), p.Index)
 			if !ok {

@@ -48,7 +48,7 @@ type Engine struct {
 // result per combination of referenced products.
 type lineEntry struct {
 	text    string
-	step    *notation.Step
+	step    notation.Step
 	errs    source.ErrorList
 	refs    []string // labels referred to, in order
 	results map[string]*stepResult
@@ -143,7 +143,7 @@ func (e *Engine) analyze(ctx context.Context, srcs []Source, lazy bool) ([]*Repo
 	nLabels := 0
 	for i := range srcs {
 		for _, ent := range ents[i] {
-			if ent.step.Label != nil {
+			if _, ok := ent.step.Label(); ok {
 				nLabels++
 			}
 		}
@@ -153,8 +153,8 @@ func (e *Engine) analyze(ctx context.Context, srcs []Source, lazy bool) ([]*Repo
 	later := make(map[string]bool, nLabels)
 	for i := range srcs {
 		for _, ent := range ents[i] {
-			if ent.step.Label != nil {
-				later[ent.step.Label.Name] = true
+			if l, ok := ent.step.Label(); ok {
+				later[l.Name] = true
 			}
 		}
 	}
@@ -450,7 +450,7 @@ func (e *Engine) resultLocked(ent *lineEntry, ins []*handOn) *stepResult {
 func (e *Engine) analyseSafely(ent *lineEntry, refs map[string]*handOn) (res *stepResult) {
 	defer func() {
 		if p := recover(); p != nil {
-			res = &stepResult{diags: []Diagnostic{{Code: CodeNotAnalysed, Severity: Info, Span: ent.step.Span,
+			res = &stepResult{diags: []Diagnostic{{Code: CodeNotAnalysed, Severity: Info, Span: ent.step.Span(),
 				Message: fmt.Sprintf("not analysed: internal error (%v); please report this line", p)}}, inlay: "not analysed"}
 		}
 	}()

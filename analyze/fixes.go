@@ -54,8 +54,8 @@ func activationEdits(in *stepInput, reagents string) []Edit {
 		return nil
 	}
 	label := "act"
-	if in.parsed.Label != nil {
-		label = in.parsed.Label.Name + "-act"
+	if l, ok := in.parsed.Label(); ok {
+		label = l.Name + "-act"
 	}
 	if !strings.Contains(reagents, ",") {
 		// Sulfonylation is run in dichloromethane from 0 °C (common
@@ -66,7 +66,7 @@ func activationEdits(in *stepInput, reagents string) []Edit {
 	if s.ref != "" {
 		line = fmt.Sprintf("%s: @%s + %s\n", label, s.ref, reagents)
 	}
-	start := in.parsed.Span.Start
+	start := in.parsed.Pos()
 	return []Edit{
 		{Span: source.Span{Start: start, End: start}, NewText: line},
 		{Span: s.span, NewText: "@" + label},
@@ -75,37 +75,37 @@ func activationEdits(in *stepInput, reagents string) []Edit {
 
 // appendCondition adds ", text" after the last condition (before any
 // arrow or comment).
-func appendCondition(p *notation.Step, text string) Edit {
+func appendCondition(p notation.Step, text string) Edit {
 	at := lastTermEnd(p)
 	return Edit{Span: source.Span{Start: at, End: at}, NewText: ", " + text}
 }
 
 // lastTermEnd is where the reactants and conditions end.
-func lastTermEnd(p *notation.Step) source.Pos {
-	at := p.Span.Start
-	for _, list := range [][]*notation.Term{p.Reactants, p.Conditions} {
-		for _, t := range list {
-			if t.Span.End > at {
-				at = t.Span.End
+func lastTermEnd(p notation.Step) source.Pos {
+	at := p.Pos()
+	for _, ts := range [2]notation.Terms{p.Reactants(), p.Conditions()} {
+		for k := range ts.Len() {
+			if end := ts.At(k).End(); end > at {
+				at = end
 			}
 		}
 	}
-	if p.Label != nil && p.Label.Span.End > at {
-		at = p.Label.Span.End
+	if l, ok := p.Label(); ok && l.Span.End > at {
+		at = l.Span.End
 	}
 	return at
 }
 
 // stepFixes are the actions on a step not tied to a diagnostic: write the
 // predicted product after '->' when the chemist wrote none.
-func stepFixes(p *notation.Step, in *stepInput, pred *prediction) []Fix {
+func stepFixes(p notation.Step, in *stepInput, pred *prediction) []Fix {
 	if len(in.products) > 0 || len(pred.products) == 0 || pred.notAnalysed != "" {
 		return nil
 	}
 	smi := pred.products[0].smiles
 	var e Edit
-	if p.Arrow != nil {
-		e = Edit{Span: source.Span{Start: p.Arrow.Span.End, End: p.Arrow.Span.End}, NewText: " " + smi}
+	if a, ok := p.Arrow(); ok {
+		e = Edit{Span: source.Span{Start: a.Span.End, End: a.Span.End}, NewText: " " + smi}
 	} else {
 		at := lastTermEnd(p)
 		e = Edit{Span: source.Span{Start: at, End: at}, NewText: " -> " + smi}

@@ -174,13 +174,14 @@ func fromFix(x outcome.Fix, ps outcome.Parties, solventIndex map[int]int) []chem
 }
 
 // equivalents reads the equivalents written on a term, 0 when none.
-func equivalents(t *notation.Term) float64 {
-	if t == nil {
+func equivalents(t notation.Term) float64 {
+	if t.IsZero() {
 		return 0
 	}
-	for _, q := range t.Quantities {
-		if q.Kind == notation.Equivalents && q.HasValue {
-			return q.Value
+	qs := t.Quantities()
+	for k := range qs.Len() {
+		if q := qs.At(k); q.Kind() == notation.Equivalents && q.HasValue() {
+			return q.Value()
 		}
 	}
 	return 0

@@ -25,12 +25,13 @@ type resolver struct {
 // caller expects (substrate, reagent, solvent, product); a condition
 // reagent that turns out to be a solvent is reported as such by the
 // caller.
-func (r *resolver) substance(s *notation.Substance, term *notation.Term) *substance {
-	out := &substance{text: s.Text, span: s.Span, term: term, kind: s.Kind}
-	switch s.Kind {
+func (r *resolver) substance(s notation.Substance, term notation.Term) *substance {
+	text := s.Text()
+	out := &substance{text: text, span: s.Span(), term: term, kind: s.Kind()}
+	switch out.kind {
 	case notation.Reference:
-		out.ref = s.Text
-		if h, ok := r.refs[s.Text]; ok && h != nil {
+		out.ref = text
+		if h, ok := r.refs[text]; ok && h != nil {
 			out.from = h
 			out.mol = h.mol
 			out.smiles = h.smiles
@@ -41,7 +42,7 @@ func (r *resolver) substance(s *notation.Substance, term *notation.Term) *substa
 		// first known part stands for it.
 		return out
 	}
-	if e := r.dict.lookup(s.Text); e.reagent != nil || e.solvent != nil {
+	if e := r.dict.lookup(text); e.reagent != nil || e.solvent != nil {
 		out.reagent, out.solvent = e.reagent, e.solvent
 		if out.reagent != nil {
 			out.smiles = firstNonEmpty(out.reagent.Whole, out.reagent.Species)
@@ -51,10 +52,10 @@ func (r *resolver) substance(s *notation.Substance, term *notation.Term) *substa
 		out.mol = r.dict.molecule(out.smiles)
 		return out
 	}
-	if s.Kind == notation.Word {
-		rs := r.memo.readSMILES(r.dict, s.Text)
+	if out.kind == notation.Word {
+		rs := r.memo.readSMILES(r.dict, text)
 		if rs.err == nil {
-			out.mol, out.smiles, out.asSMILES = rs.mol, s.Text, true
+			out.mol, out.smiles, out.asSMILES = rs.mol, text, true
 			// A solvent or reagent written as SMILES is still that entry:
 			// "CN(C)C=O" is DMF to the outcome rules.
 			if e := rs.entry; e.reagent != nil || e.solvent != nil {
@@ -62,45 +63,45 @@ func (r *resolver) substance(s *notation.Substance, term *notation.Term) *substa
 			}
 			return out
 		}
-		if looksLikeSMILES(s.Text) {
-			r.smilesErrors(s, rs.err)
+		if looksLikeSMILES(text) {
+			r.smilesErrors(out, rs.err)
 			return out
 		}
 	}
-	r.unknown(s)
+	r.unknown(out)
 	return out
 }
 
 // unknown reports a name that is neither in the dictionary nor SMILES,
 // with the closest known names and a fix replacing it by the closest.
-func (r *resolver) unknown(s *notation.Substance) {
-	near := r.dict.suggest(s.Text, 3)
-	msg := fmt.Sprintf("unknown reagent or solvent '%s'", s.Text)
+func (r *resolver) unknown(s *substance) {
+	near := r.dict.suggest(s.text, 3)
+	msg := fmt.Sprintf("unknown reagent or solvent '%s'", s.text)
 	var fixes []Fix
 	if len(near) > 0 {
 		msg += "; did you mean " + orList(quoteAll(near)) + "?"
 		for i, n := range near {
-			fixes = append(fixes, Fix{Title: fmt.Sprintf("Replace '%s' with '%s'", s.Text, n), Edits: []Edit{{Span: s.Span, NewText: n}}, Preferred: i == 0})
+			fixes = append(fixes, Fix{Title: fmt.Sprintf("Replace '%s' with '%s'", s.text, n), Edits: []Edit{{Span: s.span, NewText: n}}, Preferred: i == 0})
 		}
 	} else {
 		msg += "; write it as SMILES, or add it to the lab's names file"
 	}
-	r.diags = append(r.diags, Diagnostic{Code: CodeUnknownName, Severity: Error, Message: msg, Span: s.Span, Fixes: fixes})
+	r.diags = append(r.diags, Diagnostic{Code: CodeUnknownName, Severity: Error, Message: msg, Span: s.span, Fixes: fixes})
 }
 
 // smilesErrors reports the errors of a word that looks like SMILES but
 // does not read, each on its own characters.
-func (r *resolver) smilesErrors(s *notation.Substance, err error) {
+func (r *resolver) smilesErrors(s *substance, err error) {
 	list, ok := err.(smiles.ErrorList)
 	if !ok || len(list) == 0 {
-		r.diags = append(r.diags, Diagnostic{Code: CodeSMILES, Severity: Error, Message: "cannot read SMILES: " + err.Error(), Span: s.Span})
+		r.diags = append(r.diags, Diagnostic{Code: CodeSMILES, Severity: Error, Message: "cannot read SMILES: " + err.Error(), Span: s.span})
 		return
 	}
-	near := r.dict.suggest(s.Text, 1)
+	near := r.dict.suggest(s.text, 1)
 	for i, e := range list {
-		sp := source.Span{Start: s.Span.Start + source.Pos(e.Span.Start), End: s.Span.Start + source.Pos(e.Span.End)}
-		if sp.End > s.Span.End {
-			sp.End = s.Span.End
+		sp := source.Span{Start: s.span.Start + source.Pos(e.Span.Start), End: s.span.Start + source.Pos(e.Span.End)}
+		if sp.End > s.span.End {
+			sp.End = s.span.End
 		}
 		if sp.Start > sp.End {
 			sp.Start = sp.End

@@ -76,8 +76,8 @@ func (h *handOn) key() string {
 // substance is one resolved substance of a step.
 type substance struct {
 	text     string
-	span     source.Span // relative to the line
-	term     *notation.Term
+	span     source.Span   // relative to the line
+	term     notation.Term // zero when the substance stands for no term of the line
 	kind     notation.SubstanceKind
 	mol      *molecule.Molecule
 	smiles   string // as read (the written SMILES, the dictionary's, or the referenced product's)
@@ -109,7 +109,7 @@ func (s *substance) known() bool {
 
 // stepInput is a step with every substance and condition resolved.
 type stepInput struct {
-	parsed         *notation.Step
+	parsed         notation.Step
 	substrate      *substance
 	reagents       []*substance
 	solvents       []*substance

@@ -1,6 +1,11 @@
 package notation
 
-import "walden/grammar/source"
+import (
+	"math/bits"
+	"strings"
+
+	"walden/grammar/source"
+)
 
 // Node is any part of a step line. Pos and End are byte offsets in the
 // host document (the Markdown page, plan file or notebook cell), so a node
@@ -14,37 +19,154 @@ type Node interface {
 // reactants (the first is the substrate), the conditions, an optional
 // arrow with the expected products, and an optional trailing comment.
 // Parse always returns a Step, with the parts it could read.
+//
+// A Step, like every node of the syntax tree but the small ones (Mark,
+// Label, Sep, Arrow, Comment, Note), is a handle: a Tree and an index
+// into it. It is cheap to copy and compare, and it reads its fields from
+// the Tree on demand. The zero Step is no step; its methods must not be
+// called.
 type Step struct {
-	Span       source.Span // the whole line as given to Parse, without its line end
-	Mark       *Mark       // "[x]", "[-]" or "[ ]" at the start; nil when absent
-	Label      *Label      // "name:" naming this step's product; nil when absent
-	Reactants  []*Term     // terms before the first ", "; Reactants[0] holds the substrate
-	Conditions []*Term     // terms after the first ", " (solvents, temperatures, times, further reagents)
-	Arrow      *Arrow      // "->" or "→"; nil when the line has none
-	Products   []*Term     // terms after the arrow, joined by " + "; empty when the arrow asks for a prediction
-	Comment    *Comment    // "// ..." to the end of the line; nil when absent
+	t *Tree
+	i int32
 }
 
+func (s Step) n() *node { return &s.t.nodes[s.i] }
+
+// Span returns the whole line as given to Parse, without its line end.
+func (s Step) Span() source.Span { return s.t.span(s.n()) }
+
 // Pos returns the start of the line.
-func (s *Step) Pos() source.Pos { return s.Span.Start }
+func (s Step) Pos() source.Pos { return s.t.pos(s.n().start) }
 
 // End returns the end of the line.
-func (s *Step) End() source.Pos { return s.Span.End }
+func (s Step) End() source.Pos { return s.t.pos(s.n().end) }
 
-// Substrate returns the substance of the first reactant, or nil when the
-// line has none (a blank or comment-only line, or one that starts with a
-// separator).
-func (s *Step) Substrate() *Substance {
-	if len(s.Reactants) == 0 {
-		return nil
+// Step flags say which of the optional nodes follow the step's node, in
+// this order.
+const (
+	hasMark uint8 = 1 << iota
+	hasLabel
+	hasArrow
+	hasComment
+)
+
+// optional returns the node of the optional part flag, which follows the
+// step's node after the optional parts present before it.
+func (s Step) optional(flag uint8) (*node, bool) {
+	f := s.n().flags
+	if f&flag == 0 {
+		return nil, false
 	}
-	return s.Reactants[0].Substance
+	k := s.i + 1
+	for b := uint8(1); b < flag; b <<= 1 {
+		if f&b != 0 {
+			k++
+		}
+	}
+	return &s.t.nodes[k], true
+}
+
+// Mark returns the status mark ("[x]", "[-]" or "[ ]") at the start of
+// the line, and false when there is none.
+func (s Step) Mark() (Mark, bool) {
+	n, ok := s.optional(hasMark)
+	if !ok {
+		return Mark{}, false
+	}
+	return Mark{Span: s.t.span(n), State: MarkState(n.sub)}, true
+}
+
+// Label returns the "name:" naming this step's product, and false when
+// there is none.
+func (s Step) Label() (Label, bool) {
+	n, ok := s.optional(hasLabel)
+	if !ok {
+		return Label{}, false
+	}
+	sp := s.t.span(n)
+	name := source.Span{Start: sp.Start, End: sp.End - 1}
+	return Label{Span: sp, Name: s.t.text(name), NameSpan: name}, true
+}
+
+// Arrow returns the "->" or "→", and false when the line has none.
+func (s Step) Arrow() (Arrow, bool) {
+	n, ok := s.optional(hasArrow)
+	if !ok {
+		return Arrow{}, false
+	}
+	return Arrow{Span: s.t.span(n)}, true
+}
+
+// Comment returns the "// ..." to the end of the line, and false when
+// there is none.
+func (s Step) Comment() (Comment, bool) {
+	n, ok := s.optional(hasComment)
+	if !ok {
+		return Comment{}, false
+	}
+	sp := s.t.span(n)
+	return Comment{Span: sp, Text: strings.TrimSpace(s.t.text(source.Span{Start: sp.Start + 2, End: sp.End}))}, true
+}
+
+// firstTerm returns the index of the step's first term, which follows
+// the step's node and its optional parts.
+func (s Step) firstTerm() int32 {
+	return s.i + 1 + int32(bits.OnesCount8(s.n().flags&(hasMark|hasLabel|hasArrow|hasComment)))
+}
+
+// Reactants returns the terms before the first ", "; the first holds the
+// substrate.
+func (s Step) Reactants() Terms {
+	return Terms{s.t, s.firstTerm(), s.n().a}
+}
+
+// Conditions returns the terms after the first ", " (solvents,
+// temperatures, times, further reagents).
+func (s Step) Conditions() Terms {
+	n := s.n()
+	return Terms{s.t, s.firstTerm() + n.a, n.b}
+}
+
+// Products returns the terms after the arrow, joined by " + "; none when
+// the arrow asks for a prediction.
+func (s Step) Products() Terms {
+	n := s.n()
+	return Terms{s.t, s.firstTerm() + n.a + n.b, n.c}
+}
+
+// Substrate returns the substance of the first reactant, and false when
+// the line has none (a blank or comment-only line, one that starts with a
+// separator, or one whose first term holds only quantities).
+func (s Step) Substrate() (Substance, bool) {
+	r := s.Reactants()
+	if r.Len() == 0 {
+		return Substance{}, false
+	}
+	return r.At(0).Substance()
 }
 
 // Blank reports whether the line holds no reaction: nothing but a mark,
 // a label, a comment or spaces.
-func (s *Step) Blank() bool {
-	return len(s.Reactants) == 0 && len(s.Conditions) == 0 && s.Arrow == nil && len(s.Products) == 0
+func (s Step) Blank() bool {
+	n := s.n()
+	return n.a == 0 && n.b == 0 && n.c == 0 && n.flags&hasArrow == 0
+}
+
+// Terms is a list of terms of one step.
+type Terms struct {
+	t    *Tree
+	i, n int32 // the first term's node, and how many
+}
+
+// Len returns the number of terms.
+func (l Terms) Len() int { return int(l.n) }
+
+// At returns the k-th term, 0 ≤ k < Len().
+func (l Terms) At(k int) Term {
+	if k < 0 || k >= int(l.n) {
+		panic("notation: term index out of range")
+	}
+	return Term{l.t, l.i + int32(k)}
 }
 
 // MarkState is what a status mark says about a step.
@@ -76,10 +198,10 @@ type Mark struct {
 }
 
 // Pos returns the start of the mark.
-func (m *Mark) Pos() source.Pos { return m.Span.Start }
+func (m Mark) Pos() source.Pos { return m.Span.Start }
 
 // End returns the end of the mark.
-func (m *Mark) End() source.Pos { return m.Span.End }
+func (m Mark) End() source.Pos { return m.Span.End }
 
 // Label names a step's product so that a later step can use it as
 // "@name". Span covers the name and its colon, or, for a step number
@@ -91,10 +213,10 @@ type Label struct {
 }
 
 // Pos returns the start of the label.
-func (l *Label) Pos() source.Pos { return l.Span.Start }
+func (l Label) Pos() source.Pos { return l.Span.Start }
 
 // End returns the end of the label.
-func (l *Label) End() source.Pos { return l.Span.End }
+func (l Label) End() source.Pos { return l.Span.End }
 
 // SepKind says which separator came before a term.
 type SepKind int
@@ -119,19 +241,19 @@ type Sep struct {
 }
 
 // Pos returns the start of the separator.
-func (s *Sep) Pos() source.Pos { return s.Span.Start }
+func (s Sep) Pos() source.Pos { return s.Span.Start }
 
 // End returns the end of the separator.
-func (s *Sep) End() source.Pos { return s.Span.End }
+func (s Sep) End() source.Pos { return s.Span.End }
 
 // Arrow separates what goes in from the expected products.
 type Arrow struct{ Span source.Span }
 
 // Pos returns the start of the arrow.
-func (a *Arrow) Pos() source.Pos { return a.Span.Start }
+func (a Arrow) Pos() source.Pos { return a.Span.Start }
 
 // End returns the end of the arrow.
-func (a *Arrow) End() source.Pos { return a.Span.End }
+func (a Arrow) End() source.Pos { return a.Span.End }
 
 // Comment is the text after "//". Text excludes the marker and the
 // surrounding spaces.
@@ -141,31 +263,78 @@ type Comment struct {
 }
 
 // Pos returns the start of the comment.
-func (c *Comment) Pos() source.Pos { return c.Span.Start }
+func (c Comment) Pos() source.Pos { return c.Span.Start }
 
 // End returns the end of the comment.
-func (c *Comment) End() source.Pos { return c.Span.End }
+func (c Comment) End() source.Pos { return c.Span.End }
 
 // Term is one item of a line between separators: a substance with its
 // amounts ("NaN3 (1.5 eq)", "1.5 eq NaN3", "3 mol% TBAI"), or only
 // quantities ("60 °C", "0 °C to rt", "12 h"), with any parenthesised notes.
 // The parser does not know which substances are solvents or reagents;
-// that is analyze/'s business.
+// that is analyze/'s business. The zero Term is no term.
 type Term struct {
-	Span       source.Span
-	Sep        *Sep        // the separator before the term; nil for the first term of the line
-	Substance  *Substance  // nil when the term holds only quantities
-	Quantities []*Quantity // in the order written (before and after the substance, and inside parentheses)
-	Notes      []*Note     // parenthesised text that is not a quantity, e.g. "(freshly distilled)"
-
-	sep Sep // storage for Sep
+	t *Tree
+	i int32
 }
 
+func (t Term) n() *node { return &t.t.nodes[t.i] }
+
+// IsZero reports whether t is the zero Term, which stands for no term.
+func (t Term) IsZero() bool { return t.t == nil }
+
+// Span returns the term from its first to its last byte.
+func (t Term) Span() source.Span { return t.t.span(t.n()) }
+
 // Pos returns the start of the term.
-func (t *Term) Pos() source.Pos { return t.Span.Start }
+func (t Term) Pos() source.Pos { return t.t.pos(t.n().start) }
 
 // End returns the end of the term.
-func (t *Term) End() source.Pos { return t.Span.End }
+func (t Term) End() source.Pos { return t.t.pos(t.n().end) }
+
+// Sep returns the separator before the term, and false for the first
+// term of the line and the first product.
+func (t Term) Sep() (Sep, bool) {
+	n := t.n()
+	if n.sub == 0 {
+		return Sep{}, false
+	}
+	at := t.t.pos(int32(n.x))
+	return Sep{Span: source.Span{Start: at, End: at + 1}, Kind: SepKind(n.sub)}, true
+}
+
+// Substance returns the term's substance, and false when it holds only
+// quantities.
+func (t Term) Substance() (Substance, bool) {
+	n := t.n()
+	if n.flags&termSubstance == 0 {
+		return Substance{}, false
+	}
+	return Substance{t.t, t.i + n.a}, true
+}
+
+// termSubstance marks a term with a substance, the term's first child.
+const termSubstance uint8 = 1
+
+// firstQuantity returns the index of the term's first quantity, which
+// follows its substance.
+func (t Term) firstQuantity() int32 {
+	n := t.n()
+	return t.i + n.a + int32(n.flags&termSubstance)
+}
+
+// Quantities returns the term's quantities in the order written (before
+// and after the substance, and inside parentheses).
+func (t Term) Quantities() Quantities {
+	return Quantities{t.t, t.firstQuantity(), t.n().b}
+}
+
+// Notes returns the parenthesised texts that are not quantities, such as
+// "(freshly distilled)".
+func (t Term) Notes() Notes {
+	n := t.n()
+	return Notes{t.t, t.firstQuantity() + n.b, n.c}
+}
 
 // SubstanceKind says how a substance is written.
 type SubstanceKind int
@@ -201,20 +370,89 @@ func (k SubstanceKind) String() string {
 
 // Substance is a thing that takes part in a step.
 type Substance struct {
-	Span source.Span
-	Kind SubstanceKind
-	// Text is the substance as written; for a Phrase the words are joined
-	// by single spaces, for a Reference it is the label without "@".
-	Text  string
-	Parts []*Substance // the components of a Mixture, in order
-	Ratio *Quantity    // a Mixture's ratio ("4:1"); nil when not given
+	t *Tree
+	i int32
 }
 
+func (s Substance) n() *node { return &s.t.nodes[s.i] }
+
+// Span returns the substance as written.
+func (s Substance) Span() source.Span { return s.t.span(s.n()) }
+
 // Pos returns the start of the substance.
-func (s *Substance) Pos() source.Pos { return s.Span.Start }
+func (s Substance) Pos() source.Pos { return s.t.pos(s.n().start) }
 
 // End returns the end of the substance.
-func (s *Substance) End() source.Pos { return s.Span.End }
+func (s Substance) End() source.Pos { return s.t.pos(s.n().end) }
+
+// Kind returns how the substance is written.
+func (s Substance) Kind() SubstanceKind { return SubstanceKind(s.n().sub) }
+
+// plainText marks a substance whose Text is its source text as it
+// stands (for a Reference, without the "@").
+const plainText uint8 = 1
+
+// Text returns the substance as written; for a Phrase the words are
+// joined by single spaces, for a Mixture its parts by "/", for a
+// Reference it is the label without "@".
+func (s Substance) Text() string {
+	n := s.n()
+	text := s.t.text(s.t.span(n))
+	switch {
+	case SubstanceKind(n.sub) == Reference:
+		return text[1:]
+	case n.flags&plainText != 0:
+		return text
+	case SubstanceKind(n.sub) == Mixture:
+		return s.Parts().joined()
+	}
+	return singleSpaced(text)
+}
+
+// Parts returns the components of a Mixture, in order; none for other
+// kinds.
+func (s Substance) Parts() Substances {
+	n := s.n()
+	return Substances{s.t, s.i + n.b, n.c}
+}
+
+// Ratio returns a Mixture's ratio ("4:1"), and false when not given.
+func (s Substance) Ratio() (Quantity, bool) {
+	n := s.n()
+	if n.a == 0 {
+		return Quantity{}, false
+	}
+	return Quantity{s.t, s.i + n.a}, true
+}
+
+// Substances is a list of substances: the parts of a mixture.
+type Substances struct {
+	t    *Tree
+	i, n int32
+}
+
+// Len returns the number of substances.
+func (l Substances) Len() int { return int(l.n) }
+
+// At returns the k-th substance, 0 ≤ k < Len().
+func (l Substances) At(k int) Substance {
+	if k < 0 || k >= int(l.n) {
+		panic("notation: substance index out of range")
+	}
+	return Substance{l.t, l.i + int32(k)}
+}
+
+// joined returns the texts of the substances joined by "/".
+func (l Substances) joined() string {
+	var b []byte
+	for k := range l.Len() {
+		if k > 0 {
+			b = append(b, '/')
+		}
+		b = append(b, l.At(k).Text()...)
+	}
+	return string(b)
+}
 
 // QuantityKind says what a quantity measures.
 type QuantityKind int
@@ -248,22 +486,99 @@ func (k QuantityKind) String() string {
 // word standing for one ("rt", "reflux", "overnight", "cat."), a range
 // ("0 °C to rt", "12–16 h") or a ratio ("4:1").
 type Quantity struct {
-	Span     source.Span
-	Kind     QuantityKind
-	Value    float64     // the number; meaningless when HasValue is false
-	HasValue bool        // false for words such as "rt" and "reflux"
-	Unit     string      // the unit in canonical spelling ("°C", "h", "eq", "mol%"); "" for Bare, Ratio and words
-	UnitSpan source.Span // the unit as written; empty when there is none
-	Word     string      // "rt", "reflux", "overnight", "cat", "excess"; "" for numbers
-	To       *Quantity   // the upper end of a range; nil otherwise
-	Ratio    []float64   // the parts of a Ratio, e.g. [4 1]
+	t *Tree
+	i int32
 }
 
+func (q Quantity) n() *node { return &q.t.nodes[q.i] }
+
+// Span returns the quantity as written.
+func (q Quantity) Span() source.Span { return q.t.span(q.n()) }
+
 // Pos returns the start of the quantity.
-func (q *Quantity) Pos() source.Pos { return q.Span.Start }
+func (q Quantity) Pos() source.Pos { return q.t.pos(q.n().start) }
 
 // End returns the end of the quantity.
-func (q *Quantity) End() source.Pos { return q.Span.End }
+func (q Quantity) End() source.Pos { return q.t.pos(q.n().end) }
+
+// Kind returns what the quantity measures.
+func (q Quantity) Kind() QuantityKind { return QuantityKind(q.n().sub) }
+
+// hasValue marks a quantity written as a number.
+const hasValue uint8 = 1
+
+// Value returns the number; it is meaningless when HasValue is false.
+func (q Quantity) Value() float64 { return q.n().value() }
+
+// HasValue reports whether the quantity is a number; it is false for
+// words such as "rt" and "reflux".
+func (q Quantity) HasValue() bool { return q.n().flags&hasValue != 0 }
+
+// Unit returns the unit in canonical spelling ("°C", "h", "eq", "mol%");
+// "" for Bare, Ratio and words.
+func (q Quantity) Unit() string {
+	if n := q.n(); n.flags&hasValue != 0 {
+		return unitNames[n.unit]
+	}
+	return "" // a word, whose id unit holds
+}
+
+// UnitSpan returns the unit as written; it is empty when there is none.
+func (q Quantity) UnitSpan() source.Span {
+	n := q.n()
+	if QuantityKind(n.sub) == Ratio {
+		return source.Span{}
+	}
+	return source.Span{Start: q.t.pos(n.b), End: q.t.pos(n.c)}
+}
+
+// Word returns "rt", "reflux", "overnight", "cat" or "excess" for a
+// quantity written as a word; "" for numbers.
+func (q Quantity) Word() string {
+	if n := q.n(); n.flags&hasValue == 0 {
+		return wordNames[n.unit]
+	}
+	return ""
+}
+
+// To returns the upper end of a range, and false when q is no range.
+func (q Quantity) To() (Quantity, bool) {
+	n := q.n()
+	if n.a == 0 {
+		return Quantity{}, false
+	}
+	return Quantity{q.t, q.i + n.a}, true
+}
+
+// Ratio returns the parts of a Ratio, e.g. [4 1]; nil for other kinds.
+func (q Quantity) Ratio() []float64 {
+	n := q.n()
+	if QuantityKind(n.sub) != Ratio {
+		return nil
+	}
+	out := make([]float64, n.c)
+	for k := range out {
+		out[k] = q.t.nodes[q.i+n.b+int32(k)].value()
+	}
+	return out
+}
+
+// Quantities is a list of quantities of one term.
+type Quantities struct {
+	t    *Tree
+	i, n int32
+}
+
+// Len returns the number of quantities.
+func (l Quantities) Len() int { return int(l.n) }
+
+// At returns the k-th quantity, 0 ≤ k < Len().
+func (l Quantities) At(k int) Quantity {
+	if k < 0 || k >= int(l.n) {
+		panic("notation: quantity index out of range")
+	}
+	return Quantity{l.t, l.i + int32(k)}
+}
 
 // Note is parenthesised text that is not a quantity. Text excludes the
 // parentheses.
@@ -273,7 +588,25 @@ type Note struct {
 }
 
 // Pos returns the start of the note.
-func (n *Note) Pos() source.Pos { return n.Span.Start }
+func (n Note) Pos() source.Pos { return n.Span.Start }
 
 // End returns the end of the note.
-func (n *Note) End() source.Pos { return n.Span.End }
+func (n Note) End() source.Pos { return n.Span.End }
+
+// Notes is a list of notes of one term.
+type Notes struct {
+	t    *Tree
+	i, n int32
+}
+
+// Len returns the number of notes.
+func (l Notes) Len() int { return int(l.n) }
+
+// At returns the k-th note, 0 ≤ k < Len().
+func (l Notes) At(k int) Note {
+	if k < 0 || k >= int(l.n) {
+		panic("notation: note index out of range")
+	}
+	sp := l.t.span(&l.t.nodes[l.i+int32(k)])
+	return Note{Span: sp, Text: l.t.text(sp)}
+}

@@ -57,4 +57,30 @@
 //
 // The package knows no chemistry: it classifies text by its shape and
 // leaves meaning (is this a solvent? a valid SMILES?) to analyze/.
+//
+// # The syntax tree
+//
+// Parse reads one line and ParseLines the lines of a page. Both give
+// Steps whose nodes live in a Tree: the text, kept once, and one slice
+// of small records holding offsets, kinds, counts and values, but no
+// pointers and no strings. Step, Term, Substance and Quantity are handles
+// (a Tree and an index) whose methods read those records; the few small
+// parts (Mark, Label, Sep, Arrow, Comment, Note) are returned as plain
+// values. Texts are slices of the Tree's text, made on demand; a unit or
+// quantity word is kept as an index into the tables of units.tsv and
+// words.tsv. A page of ten thousand steps read by ParseLines is so a
+// hundred or so allocations of 32 KiB that the garbage collector need not
+// scan, rather than a hundred thousand small ones full of pointers, which
+// is what makes opening a long notebook cheap. Lists are read with Len and
+// At:
+//
+//	rs := st.Reactants()
+//	for i := range rs.Len() {
+//		if s, ok := rs.At(i).Substance(); ok {
+//			fmt.Println(s.Kind(), s.Text())
+//		}
+//	}
+//
+// A Tree is never changed after parsing, so Steps may be shared between
+// goroutines. Positions are host offsets (grammar/source) throughout.
 package notation

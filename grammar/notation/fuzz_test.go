@@ -21,9 +21,6 @@ func FuzzParse(f *testing.F) {
 	f.Fuzz(func(t *testing.T, line []byte, base int) {
 		base = base & 0xffff
 		st, errs := Parse(line, source.Pos(base))
-		if st == nil {
-			t.Fatal("nil step")
-		}
 		lo, hi := source.Pos(base), source.Pos(base+len(line))
 		for i, e := range errs {
 			if e.Span.Start < lo || e.Span.End > hi || e.Span.Start > e.Span.End {
@@ -46,6 +43,9 @@ func FuzzParse(f *testing.F) {
 			return true
 		})
 		_ = st.String()
+		if len(st.t.nodes) != cap(st.t.nodes) {
+			t.Fatalf("Parse sized the Tree for %d nodes and wrote %d", cap(st.t.nodes), len(st.t.nodes))
+		}
 
 		// The batch parser agrees with Parse on every line of the input
 		// read as a host text.

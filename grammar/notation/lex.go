@@ -91,10 +91,20 @@ func (p *parser) commaSeparates(i, end int) bool {
 
 func isUpperByte(c byte) bool { return 'A' <= c && c <= 'Z' }
 
-// mayBreak marks the ASCII bytes at which a word may end; every other
-// ASCII byte continues it. Non-ASCII bytes are checked in full (no-break
-// spaces, the arrow).
-var mayBreak = [utf8.RuneSelf]bool{' ': true, '\t': true, ',': true, '-': true}
+// wordByte marks the bytes that continue a word whatever follows them:
+// all but the ASCII bytes at which a word may end and the first bytes of
+// the no-break spaces and arrows (0xC2, 0xE2), which are checked in full.
+// A continuation byte of UTF-8 is never one of these, so a word is
+// scanned byte by byte without decoding.
+var wordByte = func() (t [256]bool) {
+	for c := range t {
+		t[c] = true
+	}
+	for _, c := range []byte{' ', '\t', ',', '-', 0xC2, 0xE2} {
+		t[c] = false
+	}
+	return t
+}()
 
 // breakAt reports whether a word cannot continue at i: the end, a space,
 // a separating comma or an arrow.
@@ -160,21 +170,8 @@ func (p *parser) lex(toks []tok, i, end int) []tok {
 			}
 		}
 		j := i
-		for j < end {
-			c := p.src[j]
-			if c < utf8.RuneSelf && !mayBreak[c] {
-				j++ // the common case: a byte that cannot end a word
-				continue
-			}
-			if p.breakAt(j, end) {
-				break
-			}
-			if c < utf8.RuneSelf {
-				j++
-				continue
-			}
-			_, size := utf8.DecodeRune(p.src[j:end])
-			j += size
+		for j < end && (wordByte[p.src[j]] || !p.breakAt(j, end)) {
+			j++
 		}
 		toks = append(toks, tok{kind: tWord, start: i, end: j})
 		i = j

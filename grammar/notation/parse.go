@@ -20,128 +20,36 @@ const MaxLineLength = 16 << 10
 // binary blob yields a short list.
 const maxErrors = 50
 
-// parser holds the state of one Parse call.
+// parser holds the state of one Parse call, or of one run of lines of
+// ParseLines.
 type parser struct {
 	src  []byte
-	str  string // src as a string: node texts are substrings of it, which costs no allocation
+	str  string // src as a string: texts are substrings of it, which costs no allocation
 	base source.Pos
 	errs source.ErrorList
 
-	// Nodes are carved from small slabs: a step has a dozen nodes, and
-	// one allocation per node would dominate the parse time.
-	termSlab []Term
-	subSlab  []Substance
-	qtySlab  []Quantity
-	tokBuf   [32]tok
-	groupBuf [16]tok
-
-	mark0  *Mark // the step's Mark, Label and Arrow, allocated with it
-	label0 *Label
-	arrow0 *Arrow
-
-	// batch is set by ParseLines: slabs are large and shared by lines.
-	// There a step's optional nodes come from slabs of their own, only
-	// for the lines that have them: most lines have no mark, label or
-	// comment, and setting room aside for them in every step would make
-	// a page's tree bigger by a tenth.
-	batch       bool
-	stepSlab    []Step
-	markSlab    []Mark
-	labelSlab   []Label
-	arrowSlab   []Arrow
-	commentSlab []Comment
-	qptr        []*Quantity // backing of the terms' Quantities lists
-	ptrSlab     []*Term
+	// The drafts of the line being read, reused from line to line.
+	st         draftStep
+	termDrafts slab[draftTerm]
+	subDrafts  slab[draftSubstance]
+	qtyDrafts  slab[draftQuantity]
+	order      []int32       // the step's terms: reactants, conditions, products
+	qlist      []int32       // the terms' quantities, by id
+	slist      []int32       // the mixtures' parts, by id
+	notes      []source.Span // the terms' notes
+	nums       []float64     // the ratios' parts
+	tokBuf     [32]tok
+	groupBuf   [16]tok
 }
 
-const (
-	slabSize  = 6   // nodes per slab when a line needs more than sizeSlabs foresaw
-	batchSlab = 128 // nodes per slab in ParseLines
-)
-
-// parsers keeps parser state, token buffers included, between calls:
-// the server parses every line of a page on each edit.
+// parsers keeps parser state, drafts and token buffers included, between
+// calls: the server parses every changed line of a page on each edit.
 var parsers = sync.Pool{New: func() any { return new(parser) }}
 
-// release clears p of everything the returned tree or errors hold and
-// puts it back in the pool.
+// release drops the line's text and puts p back in the pool.
 func (p *parser) release() {
-	// Drop what the tree and the errors hold; the token buffers hold no
-	// pointers and need no clearing.
 	p.src, p.str, p.errs = nil, "", nil
-	p.termSlab, p.subSlab, p.qtySlab, p.qptr = nil, nil, nil, nil
-	p.mark0, p.label0, p.arrow0 = nil, nil, nil
 	parsers.Put(p)
-}
-
-// sizeSlabs makes the node slabs as large as the tokens say they will
-// need to be, so that most lines take one allocation per kind of node.
-func (p *parser) sizeSlabs(toks []tok) {
-	if p.batch {
-		return
-	}
-	terms, subs, qtys := 1, 0, 0
-	for _, t := range toks {
-		switch t.kind {
-		case tPlus, tComma, tArrow:
-			terms++
-		case tGroup:
-			qtys += 2
-		case tWord:
-			switch c := p.src[t.start]; {
-			case isDigitByte(c) || c == '-' || c == '+' || c == '.' ||
-				c == 0xE2 && strings.HasPrefix(p.str[t.start:], "−") || strings.HasPrefix(p.str[t.start:], "–"):
-				qtys++
-			case quantityWordStarts[c|0x20]:
-				if _, ok := p.quantityWord([]tok{t}); ok {
-					qtys++
-				} else {
-					subs++
-				}
-			default:
-				subs++
-			}
-		}
-	}
-	p.termSlab = make([]Term, 0, terms)
-	p.subSlab = make([]Substance, 0, min(subs, terms+1))
-	p.qtySlab = make([]Quantity, 0, min(qtys, 2*terms))
-}
-
-func (p *parser) slabSize() int {
-	if p.batch {
-		return batchSlab
-	}
-	return slabSize
-}
-
-// newTerm, newSubstance and newQuantity return a zero node carved from
-// its slab. A slab is never reused, so the node is always fresh: callers
-// set its fields one by one rather than assigning a whole struct, which
-// would write every pointer field through the garbage collector's write
-// barrier.
-func (p *parser) newTerm() *Term {
-	if len(p.termSlab) == cap(p.termSlab) {
-		p.termSlab = make([]Term, 0, p.slabSize())
-	}
-	p.termSlab = p.termSlab[:len(p.termSlab)+1]
-	return &p.termSlab[len(p.termSlab)-1]
-}
-
-func (p *parser) newSubstance() *Substance {
-	if len(p.subSlab) == cap(p.subSlab) {
-		p.subSlab = make([]Substance, 0, p.slabSize())
-	}
-	p.subSlab = p.subSlab[:len(p.subSlab)+1]
-	return &p.subSlab[len(p.subSlab)-1]
-}
-
-func (p *parser) newQuantity() *Quantity {
-	if len(p.qtySlab) == cap(p.qtySlab) {
-		p.qtySlab = make([]Quantity, 0, p.slabSize())
-	}
-	p.qtySlab = p.qtySlab[:len(p.qtySlab)+1]
-	return &p.qtySlab[len(p.qtySlab)-1]
 }
 
 // Parse reads one step line. line must not hold its line end; base is
@@ -153,31 +61,37 @@ func (p *parser) newQuantity() *Quantity {
 // separator (" + ", ", ", "->"), so one bad term does not hide the rest of
 // the line. It does not judge chemistry: whether a word is a known name or
 // valid SMILES, or a term a sensible solvent, is left to analyze/.
-func Parse(line []byte, base source.Pos) (*Step, source.ErrorList) {
+//
+// The Step's Tree holds a copy of the line and the line's nodes: a clean
+// line costs three allocations.
+func Parse(line []byte, base source.Pos) (Step, source.ErrorList) {
 	p := parsers.Get().(*parser)
 	defer p.release()
-	p.src, p.base = line, base
+	t := &Tree{base: base}
 	if len(line) <= MaxLineLength {
-		p.str = string(line) // a longer line is refused unread
+		t.src = string(line) // a longer line is refused unread
 	}
-	return p.parse()
+	p.src, p.str, p.base = line, t.src, base
+	errs := p.parse()
+	t.nodes = make([]node, 0, p.size())
+	return Step{t, p.emit(t)}, errs
 }
 
 // ParseLines parses the step lines of one host text, given by their
 // spans (as grammar/notebook finds them), and returns the steps and each
 // line's errors (nil for a clean line), in the order of spans. It gives
-// the same trees as calling Parse on each line, but shares one copy of
-// the text and large node slabs among the lines, so that reading a whole
-// page costs a few allocations per hundred lines instead of several per
-// line. A span outside text gives an empty Step and a "bad-span" error.
-func ParseLines(text []byte, spans []source.Span) ([]*Step, []source.ErrorList) {
+// the same trees as calling Parse on each line, but its Steps share one
+// copy of the text, and Trees of about 80 steps each, so that reading a
+// whole page costs an allocation per 80 lines. A span outside text gives
+// an empty Step and a "bad-span" error.
+func ParseLines(text []byte, spans []source.Span) ([]Step, []source.ErrorList) {
 	host := string(text)
-	steps := make([]*Step, len(spans))
+	steps := make([]Step, len(spans))
 	errs := make([]source.ErrorList, len(spans))
 	// A long page is cut into one run of lines per core, each read by a
-	// parser of its own: lines are independent, and on opening a page the
-	// chemist waits for the whole of it. Short pages are not worth a
-	// goroutine.
+	// parser of its own into Trees of its own: lines are independent,
+	// and on opening a page the chemist waits for the whole of it. Short
+	// pages are not worth a goroutine.
 	workers := min(runtime.GOMAXPROCS(0), len(spans)/parallelLines)
 	if workers < 2 {
 		parseRun(text, host, spans, steps, errs)
@@ -201,102 +115,79 @@ const parallelLines = 1000
 
 // parseRun parses the lines at spans into steps and errs with one
 // parser, as ParseLines describes.
-func parseRun(text []byte, host string, spans []source.Span, steps []*Step, errs []source.ErrorList) {
-	p := &parser{batch: true}
+func parseRun(text []byte, host string, spans []source.Span, steps []Step, errs []source.ErrorList) {
+	p := new(parser)
+	var t *Tree
+	// room returns a Tree with room for n more nodes: the current one, or
+	// a new one of treeNodes nodes. Trees of that size are zeroed and
+	// filled while they are in the cache, and reuse the memory the
+	// runtime keeps for small objects, where one Tree for the whole run
+	// would be zeroed in full before the first node is written.
+	room := func(n int) *Tree {
+		if t == nil || cap(t.nodes)-len(t.nodes) < n {
+			t = &Tree{src: host, nodes: make([]node, 0, max(n, treeNodes))}
+		}
+		return t
+	}
 	for i, sp := range spans {
+		p.errs = nil
 		if sp.Start < 0 || sp.Start > sp.End || int(sp.End) > len(text) {
 			// A caller's mistake, reported rather than panicking.
-			st := &Step{Span: sp}
 			errs[i].Add(sp, "bad-span", fmt.Sprintf("line span %d-%d lies outside the %d-byte text", sp.Start, sp.End, len(text)))
-			steps[i] = st
+			t := room(1)
+			steps[i] = Step{t, emitBad(t, sp)}
 			continue
 		}
-		p.src, p.base, p.errs = text[sp.Start:sp.End], sp.Start, nil
+		p.src, p.base = text[sp.Start:sp.End], sp.Start
 		p.str = ""
 		if sp.Len() <= MaxLineLength {
 			p.str = host[sp.Start:sp.End]
 		}
-		steps[i], errs[i] = p.parse()
+		errs[i] = p.parse()
+		t := room(p.size())
+		steps[i] = Step{t, p.emit(t)}
 	}
 }
 
-// slabNode returns one zero node carved from *slab, starting a new slab
-// of batchSlab nodes when it is full.
-func slabNode[T any](slab *[]T) []T {
-	if len(*slab) == cap(*slab) {
-		*slab = make([]T, 0, batchSlab)
-	}
-	n := len(*slab)
-	*slab = (*slab)[:n+1]
-	return (*slab)[n : n+1 : n+1]
+// treeNodes is the number of nodes of a Tree made by ParseLines: 32 KiB
+// of 32-byte nodes (TestNodeSize), the largest of the runtime's small
+// objects, about 80 steps.
+const treeNodes = 1024
+
+// emitBad appends the empty step of a span outside the text, which has
+// no offsets in it, and returns its index.
+func emitBad(t *Tree, sp source.Span) int32 {
+	i := int32(len(t.nodes))
+	t.nodes = append(t.nodes, node{kind: nStep, start: int32(sp.Start), end: int32(sp.End)})
+	return i
 }
 
-// markNode, labelNode and arrowNode return the node for the step being
-// parsed: allocated with it by Parse, carved on first use by ParseLines.
-func (p *parser) markNode() *Mark {
-	if p.mark0 == nil {
-		p.mark0 = &slabNode(&p.markSlab)[0]
-	}
-	return p.mark0
-}
-
-func (p *parser) labelNode() *Label {
-	if p.label0 == nil {
-		p.label0 = &slabNode(&p.labelSlab)[0]
-	}
-	return p.label0
-}
-
-func (p *parser) arrowNode() *Arrow {
-	if p.arrow0 == nil {
-		p.arrow0 = &slabNode(&p.arrowSlab)[0]
-	}
-	return p.arrow0
-}
-
-// stepNodes holds a step and its single nodes, allocated together.
-type stepNodes struct {
-	st      Step
-	mark    Mark
-	label   Label
-	arrow   Arrow
-	comment Comment
-}
-
-// parse reads p.src.
-func (p *parser) parse() (*Step, source.ErrorList) {
+// parse reads p.src into p.st and returns the line's errors.
+func (p *parser) parse() source.ErrorList {
 	line := p.src
-	var st *Step
-	var comment *Comment
-	if p.batch {
-		st = &slabNode(&p.stepSlab)[0]
-		p.mark0, p.label0, p.arrow0 = nil, nil, nil
-	} else {
-		one := new(stepNodes)
-		p.mark0, p.label0, p.arrow0 = &one.mark, &one.label, &one.arrow
-		st, comment = &one.st, &one.comment
-	}
+	p.termDrafts.reset()
+	p.subDrafts.reset()
+	p.qtyDrafts.reset()
+	p.order, p.qlist, p.slist = p.order[:0], p.qlist[:0], p.slist[:0]
+	p.notes, p.nums = p.notes[:0], p.nums[:0]
+	st := &p.st
+	*st = draftStep{}
 	st.Span = p.span(0, len(line))
 	if len(line) > MaxLineLength {
 		p.errorf(0, len(line), "line-too-long",
 			"step line is %d bytes long; walden reads at most %d bytes per line: split the line or shorten it",
 			len(line), MaxLineLength)
-		return st, p.errs
+		return p.errs
 	}
 	p.checkBytes()
 	end := len(line)
 	if c := p.commentStart(); c >= 0 {
-		if comment == nil {
-			comment = &slabNode(&p.commentSlab)[0]
-		}
-		comment.Span, comment.Text = p.span(c, end), strings.TrimSpace(p.str[c+2:end])
-		st.Comment = comment
+		st.comment, st.hasComment = p.span(c, end), true
 		end = c
 	}
 	i := p.skipSpace(0, end)
 	i = p.mark(st, i, end)
 	toks := p.lex(p.tokBuf[:0], i, end)
-	p.sizeSlabs(toks)
 	toks = p.label(st, toks)
 	p.terms(st, toks)
 	if len(p.errs) > maxErrors {
@@ -304,7 +195,7 @@ func (p *parser) parse() (*Step, source.ErrorList) {
 		p.errorf(0, len(line), "too-many-errors", "more than %d errors on this line; only the first are shown", maxErrors)
 	}
 	p.errs.Sort()
-	return st, p.errs
+	return p.errs
 }
 
 // span converts a range of the line into host offsets.
@@ -386,7 +277,7 @@ func (p *parser) commentStart() int {
 // must be followed by a space or the end: "[x]" and "[-]" are not SMILES
 // bracket atoms (no element symbol is x or empty), and the space keeps
 // the mark apart from any word after it.
-func (p *parser) mark(st *Step, i, end int) int {
+func (p *parser) mark(st *draftStep, i, end int) int {
 	if i+2 >= end || p.src[i] != '[' || p.src[i+2] != ']' {
 		return i
 	}
@@ -401,8 +292,7 @@ func (p *parser) mark(st *Step, i, end int) int {
 	default:
 		return i
 	}
-	st.Mark = p.markNode()
-	st.Mark.Span, st.Mark.State = p.span(i, i+3), state
+	st.mark, st.hasMark = Mark{Span: p.span(i, i+3), State: state}, true
 	if i+3 < end && p.spaceAt(i+3, end) == 0 {
 		p.errorf(i, i+3, "mark-space", "status mark %s is followed by %s; put a space after the mark",
 			quote(p.str[i:i+3]), quote(p.wordAt(i+3, end)))
@@ -423,14 +313,13 @@ func (p *parser) wordAt(i, end int) string {
 // label reads "name:" from the first token. A SMILES never ends with
 // ':' (it is a bond and needs an atom after it), so a first word ending
 // in a colon is a label.
-func (p *parser) label(st *Step, toks []tok) []tok {
+func (p *parser) label(st *draftStep, toks []tok) []tok {
 	if len(toks) == 0 || toks[0].kind != tWord {
 		return toks
 	}
 	if p.numbered(toks) {
 		t := toks[0]
-		st.Label = p.labelNode()
-		st.Label.Span, st.Label.Name, st.Label.NameSpan = p.span(t.start, t.end), p.str[t.start:t.end-1], p.span(t.start, t.end-1)
+		st.label, st.hasLabel = p.span(t.start, t.end), true
 		if len(toks) == 1 {
 			p.errorf(t.start, t.end, "missing-substrate", "step number %s with no step after it; write the substrate after it", quote(p.text(t)))
 		}
@@ -441,8 +330,7 @@ func (p *parser) label(st *Step, toks []tok) []tok {
 	}
 	t := toks[0]
 	name := p.str[t.start : t.end-1]
-	st.Label = p.labelNode()
-	st.Label.Span, st.Label.Name, st.Label.NameSpan = p.span(t.start, t.end), name, p.span(t.start, t.end-1)
+	st.label, st.hasLabel = p.span(t.start, t.end), true
 	switch {
 	case name == "":
 		p.errorf(t.start, t.end, "label-empty", "':' with no label before it; write a label such as 'azide:' or delete the ':'")
@@ -508,7 +396,7 @@ const (
 
 // terms groups the tokens into terms and files each into its part of the
 // step.
-func (p *parser) terms(st *Step, toks []tok) {
+func (p *parser) terms(st *draftStep, toks []tok) {
 	// The words between two separators are contiguous in toks, so each
 	// segment is a sub-slice and costs nothing.
 	var segBuf [16]segment
@@ -524,46 +412,45 @@ func (p *parser) terms(st *Step, toks []tok) {
 	}
 	segs[len(segs)-1].toks = toks[from:]
 	if len(segs) == 1 && len(segs[0].toks) == 0 {
-		if st.Mark != nil && st.Label == nil {
-			p.errorf(int(st.Mark.Span.Start-p.base), int(st.Mark.Span.End-p.base), "missing-substrate",
+		if st.hasMark && !st.hasLabel {
+			p.errorf(int(st.mark.Span.Start-p.base), int(st.mark.Span.End-p.base), "missing-substrate",
 				"status mark with no step after it; write the step after the mark")
 		}
 		return
 	}
 	type placed struct {
 		ph phase
-		t  *Term
+		t  *draftTerm
 	}
 	var allBuf [16]placed
 	all := allBuf[:0]
 	ph := inReactants
 	for k, seg := range segs {
-		var sep *Sep
+		var sep Sep
 		if seg.sep != nil {
 			switch seg.sep.kind {
 			case tPlus:
-				sep = &Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Plus}
+				sep = Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Plus}
 			case tComma:
-				sep = &Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Comma}
+				sep = Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Comma}
 				if ph == inReactants {
 					ph = inConditions
 				} else if ph == inProducts {
 					ph = inConditions
 				}
 			case tArrow:
-				var last *Term
+				var last *draftTerm
 				if len(all) > 0 && all[len(all)-1].ph == inConditions {
 					last = all[len(all)-1].t
 				}
 				if p.rangeAcrossArrow(last, seg) {
 					continue
 				}
-				if st.Arrow != nil {
+				if st.hasArrow {
 					p.errorf(seg.sep.start, seg.sep.end, "second-arrow",
 						"second arrow in one step; a step has one '->' before its expected products: split the line into two steps")
 				} else {
-					st.Arrow = p.arrowNode()
-					st.Arrow.Span = p.span(seg.sep.start, seg.sep.end)
+					st.arrow, st.hasArrow = p.span(seg.sep.start, seg.sep.end), true
 				}
 				ph = inProducts
 				if len(seg.toks) == 0 {
@@ -576,7 +463,7 @@ func (p *parser) terms(st *Step, toks []tok) {
 					// prediction; it is not an error.
 					continue
 				}
-				all = append(all, placed{inProducts, p.term(seg.toks, nil)})
+				all = append(all, placed{inProducts, p.term(seg.toks, Sep{})})
 				continue
 			}
 		}
@@ -591,32 +478,13 @@ func (p *parser) terms(st *Step, toks []tok) {
 	for _, pt := range all {
 		count[pt.ph]++
 	}
-	var backing []*Term
-	if p.batch {
-		if cap(p.ptrSlab)-len(p.ptrSlab) < len(all) {
-			p.ptrSlab = make([]*Term, 0, max(len(all), 4*batchSlab))
-		}
-		n := len(p.ptrSlab)
-		p.ptrSlab = p.ptrSlab[:n+len(all)]
-		backing = p.ptrSlab[n : n+len(all) : n+len(all)]
-	} else {
-		backing = make([]*Term, len(all))
-	}
+	p.order = append(p.order[:0], make([]int32, len(all))...)
 	next := [3]int{0, count[0], count[0] + count[1]}
 	for _, pt := range all {
-		backing[next[pt.ph]] = pt.t
+		p.order[next[pt.ph]] = pt.t.id
 		next[pt.ph]++
 	}
-	r, c := count[0], count[0]+count[1]
-	if r > 0 {
-		st.Reactants = backing[:r:r]
-	}
-	if c > r {
-		st.Conditions = backing[r:c:c]
-	}
-	if len(all) > c {
-		st.Products = backing[c:]
-	}
+	st.nR, st.nC, st.nP = count[0], count[1], count[2]
 }
 
 // emptySegment reports a separator with nothing on one side.
@@ -652,11 +520,15 @@ func (p *parser) emptySegment(segs []segment, k int, ph phase) {
 // between two temperatures is a temperature range, not the reaction
 // arrow. last is the condition before the arrow, if any. It reports
 // whether it took the segment.
-func (p *parser) rangeAcrossArrow(last *Term, seg segment) bool {
+func (p *parser) rangeAcrossArrow(last *draftTerm, seg segment) bool {
 	if last == nil || len(seg.toks) == 0 {
 		return false
 	}
-	if last.Substance != nil || len(last.Quantities) != 1 || last.Quantities[0].Kind != Temperature || last.Quantities[0].To != nil {
+	if last.sub != 0 || last.q1-last.q0 != 1 {
+		return false
+	}
+	from := p.qtyDrafts.at(p.qlist[last.q0])
+	if from.Kind != Temperature || from.to != 0 {
 		return false
 	}
 	q, n, errs := p.quantity(seg.toks, 0, false)
@@ -664,8 +536,7 @@ func (p *parser) rangeAcrossArrow(last *Term, seg segment) bool {
 		return false
 	}
 	p.errs = append(p.errs, errs...)
-	from := last.Quantities[0]
-	from.To = q
+	from.to = ref(q.id)
 	from.Span.End = q.Span.End
 	last.Span.End = q.Span.End
 	return true

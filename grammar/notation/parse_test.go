@@ -4,6 +4,7 @@ import (
 	"regexp"
 	"strings"
 	"testing"
+	"unsafe"
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
@@ -16,63 +17,63 @@ import (
 // "mark:done", "label:azide", "R:" reactant, "C:" condition, "P:" product,
 // "->" the arrow, "//text" the comment. A term shows its substance as
 // kind=text (mix(a,b;ratio) for mixtures) and its quantities in brackets.
-func shape(st *Step) string {
+func shape(st Step) string {
 	var parts []string
-	if st.Mark != nil {
-		parts = append(parts, "mark:"+st.Mark.State.String())
+	if m, ok := st.Mark(); ok {
+		parts = append(parts, "mark:"+m.State.String())
 	}
-	if st.Label != nil {
-		parts = append(parts, "label:"+st.Label.Name)
+	if l, ok := st.Label(); ok {
+		parts = append(parts, "label:"+l.Name)
 	}
-	term := func(tag string, t *Term) {
-		s := tag + ":"
-		if t.Substance != nil {
-			s += substanceShape(t.Substance)
+	terms := func(tag string, ts Terms) {
+		for k := range ts.Len() {
+			t := ts.At(k)
+			s := tag + ":"
+			if sub, ok := t.Substance(); ok {
+				s += substanceShape(sub)
+			}
+			qs := t.Quantities()
+			for k := range qs.Len() {
+				s += "[" + qs.At(k).Describe() + "]"
+			}
+			ns := t.Notes()
+			for k := range ns.Len() {
+				s += "(" + ns.At(k).Text + ")"
+			}
+			parts = append(parts, s)
 		}
-		for _, q := range t.Quantities {
-			s += "[" + q.Describe() + "]"
-		}
-		for _, n := range t.Notes {
-			s += "(" + n.Text + ")"
-		}
-		parts = append(parts, s)
 	}
-	for _, t := range st.Reactants {
-		term("R", t)
-	}
-	for _, t := range st.Conditions {
-		term("C", t)
-	}
-	if st.Arrow != nil {
+	terms("R", st.Reactants())
+	terms("C", st.Conditions())
+	if _, ok := st.Arrow(); ok {
 		parts = append(parts, "->")
 	}
-	for _, t := range st.Products {
-		term("P", t)
-	}
-	if st.Comment != nil {
-		parts = append(parts, "//"+st.Comment.Text)
+	terms("P", st.Products())
+	if c, ok := st.Comment(); ok {
+		parts = append(parts, "//"+c.Text)
 	}
 	return strings.Join(parts, " | ")
 }
 
-func substanceShape(s *Substance) string {
-	switch s.Kind {
+func substanceShape(s Substance) string {
+	switch s.Kind() {
 	case Mixture:
 		var ps []string
-		for _, p := range s.Parts {
-			ps = append(ps, p.Text)
+		parts := s.Parts()
+		for k := range parts.Len() {
+			ps = append(ps, parts.At(k).Text())
 		}
 		r := ""
-		if s.Ratio != nil {
-			r = ";" + s.Ratio.Describe()
+		if q, ok := s.Ratio(); ok {
+			r = ";" + q.Describe()
 		}
 		return "mix(" + strings.Join(ps, ",") + r + ")"
 	case Reference:
-		return "@" + s.Text
+		return "@" + s.Text()
 	case Phrase:
-		return "phrase=" + s.Text
+		return "phrase=" + s.Text()
 	}
-	return s.Text
+	return s.Text()
 }
 
 // TestValid: lines a chemist writes, each with the reading the notation
@@ -240,26 +241,42 @@ func TestSpans(t *testing.T) {
 	st, errs := Parse([]byte(line), base)
 	require.Empty(t, errs)
 	text := func(n Node) string { return line[n.Pos()-base : n.End()-base] }
-	assert.Equal(t, "[x]", text(st.Mark))
-	assert.Equal(t, "azide:", text(st.Label))
-	assert.Equal(t, "azide", line[st.Label.NameSpan.Start-base:st.Label.NameSpan.End-base])
-	assert.Equal(t, "@mesylate", text(st.Reactants[0].Substance))
-	assert.Equal(t, "NaN3 (1.5 eq)", text(st.Reactants[1]))
-	assert.Equal(t, "1.5 eq", text(st.Reactants[1].Quantities[0]))
-	assert.Equal(t, "eq", line[st.Reactants[1].Quantities[0].UnitSpan.Start-base:st.Reactants[1].Quantities[0].UnitSpan.End-base])
-	assert.Equal(t, "+", text(st.Reactants[1].Sep))
-	mix := st.Conditions[0].Substance
-	assert.Equal(t, "acetone–water", text(mix))
-	assert.Equal(t, "water", text(mix.Parts[1]))
-	assert.Equal(t, "4:1", text(mix.Ratio))
-	assert.Equal(t, "−78 °C -> rt", text(st.Conditions[1].Quantities[0]))
-	assert.Equal(t, "rt", text(st.Conditions[1].Quantities[0].To))
-	assert.Equal(t, "->", text(st.Arrow))
-	assert.Equal(t, "// ok", text(st.Comment))
+	must := func(n Node, ok bool) Node {
+		t.Helper()
+		require.True(t, ok)
+		return n
+	}
+	mark, ok := st.Mark()
+	assert.Equal(t, "[x]", text(must(mark, ok)))
+	label, ok := st.Label()
+	assert.Equal(t, "azide:", text(must(label, ok)))
+	assert.Equal(t, "azide", line[label.NameSpan.Start-base:label.NameSpan.End-base])
+	sub, ok := st.Reactants().At(0).Substance()
+	assert.Equal(t, "@mesylate", text(must(sub, ok)))
+	r1 := st.Reactants().At(1)
+	assert.Equal(t, "NaN3 (1.5 eq)", text(r1))
+	q := r1.Quantities().At(0)
+	assert.Equal(t, "1.5 eq", text(q))
+	assert.Equal(t, "eq", line[q.UnitSpan().Start-base:q.UnitSpan().End-base])
+	sep, ok := r1.Sep()
+	assert.Equal(t, "+", text(must(sep, ok)))
+	mix, ok := st.Conditions().At(0).Substance()
+	assert.Equal(t, "acetone–water", text(must(mix, ok)))
+	assert.Equal(t, "water", text(mix.Parts().At(1)))
+	ratio, ok := mix.Ratio()
+	assert.Equal(t, "4:1", text(must(ratio, ok)))
+	temp := st.Conditions().At(1).Quantities().At(0)
+	assert.Equal(t, "−78 °C -> rt", text(temp))
+	to, ok := temp.To()
+	assert.Equal(t, "rt", text(must(to, ok)))
+	arrow, ok := st.Arrow()
+	assert.Equal(t, "->", text(must(arrow, ok)))
+	comment, ok := st.Comment()
+	assert.Equal(t, "// ok", text(must(comment, ok)))
 	var prev source.Pos = base
 	Inspect(st, func(n Node) bool {
 		assert.True(t, n.Pos() >= base && n.End() <= base+source.Pos(len(line)) && n.Pos() <= n.End(), "%T %d-%d", n, n.Pos(), n.End())
-		if _, ok := n.(*Step); !ok {
+		if _, ok := n.(Step); !ok {
 			assert.GreaterOrEqual(t, n.Pos(), prev, "%T %q out of order", n, text(n))
 			prev = n.Pos()
 		}
@@ -276,12 +293,14 @@ func TestLongLine(t *testing.T) {
 	// Just under the limit: parsed in full.
 	st, errs = Parse(line[:MaxLineLength], 0)
 	assert.Empty(t, errs)
-	assert.Equal(t, MaxLineLength, len(st.Substrate().Text))
+	sub, ok := st.Substrate()
+	require.True(t, ok)
+	assert.Equal(t, MaxLineLength, len(sub.Text()))
 }
 
 func TestManyErrors(t *testing.T) {
 	st, errs := Parse([]byte(strings.Repeat("\x01", 1000)), 0)
-	assert.NotNil(t, st)
+	assert.Equal(t, source.Span{End: 1000}, st.Span())
 	assert.LessOrEqual(t, len(errs), maxErrors+1)
 	codes := map[string]int{}
 	for _, e := range errs {
@@ -300,8 +319,8 @@ func TestParseLines(t *testing.T) {
 		"CC(Br)C +", "", "@ + ,, NaN3 (1.5 eq", "(S)-4-phenylbutan-2-ol + potassium phthalimide, acetone–water 4:1, 0 °C to rt",
 		strings.Repeat("C", MaxLineLength+1), "CCBr«x»\xff",
 	}
-	// Enough lines to fill several slabs and, on a machine of two cores
-	// or more, to be cut into runs parsed at once.
+	// Enough lines to reuse the drafts many times and, on a machine of two
+	// cores or more, to be cut into runs parsed at once.
 	for i := 0; i < 2*parallelLines+100; i++ {
 		l := lines[i%len(lines)]
 		text.WriteString("  ")
@@ -318,11 +337,6 @@ func TestParseLines(t *testing.T) {
 		assert.Equal(t, want.String(), steps[i].String())
 		assert.Equal(t, wantErrs, errs[i])
 	}
-	// Appending to one step's lists must not touch its neighbour's.
-	before := steps[1].String()
-	steps[0].Products = append(steps[0].Products, &Term{})
-	steps[0].Conditions = append(steps[0].Conditions, &Term{})
-	assert.Equal(t, before, steps[1].String())
 }
 
 func TestParseLinesBadSpan(t *testing.T) {
@@ -331,5 +345,48 @@ func TestParseLinesBadSpan(t *testing.T) {
 	assert.Equal(t, "bad-span", errs[0][0].Code)
 	assert.Equal(t, "bad-span", errs[1][0].Code)
 	assert.Empty(t, errs[2])
-	assert.Equal(t, "CCBr", steps[2].Substrate().Text)
+	sub, ok := steps[2].Substrate()
+	require.True(t, ok)
+	assert.Equal(t, "CCBr", sub.Text())
+	assert.Equal(t, source.Span{Start: 2, End: 9}, steps[0].Span())
+}
+
+// TestTexts: the texts the Tree derives from the source rather than
+// keeps: a phrase's words joined by one space whatever spaces stood
+// between them, a mixture's parts joined by '/' whatever joined them, a
+// comment without its spaces (no-break ones included).
+func TestTexts(t *testing.T) {
+	for _, tc := range []struct {
+		line  string
+		texts []string // every substance's kind and text, in Inspect order
+		note  string   // the comment
+	}{
+		{"potassium\u00a0 phthalimide + NaN3, acetone – water\t4:1 // \u00a0note\u00a0",
+			[]string{"phrase potassium phthalimide", "word NaN3", "mixture acetone/water", "word acetone", "word water"}, "note"},
+		{"CCBr + NaN3, THF / water, MeOH/CH2Cl2 1:9",
+			[]string{"word CCBr", "word NaN3", "mixture THF/water", "word THF", "word water", "mixture MeOH/CH2Cl2", "word MeOH", "word CH2Cl2"}, ""},
+		{"@sm + NaN3, acetic  acid/water",
+			[]string{"reference sm", "word NaN3", "mixture acetic acid/water", "phrase acetic acid", "word water"}, ""},
+	} {
+		st, errs := Parse([]byte(tc.line), 0)
+		require.Empty(t, errs, "%q", tc.line)
+		var got []string
+		Inspect(st, func(n Node) bool {
+			if s, ok := n.(Substance); ok {
+				got = append(got, s.Kind().String()+" "+s.Text())
+			}
+			return true
+		})
+		assert.Equal(t, tc.texts, got, "%q", tc.line)
+		c, ok := st.Comment()
+		assert.Equal(t, tc.note != "", ok)
+		assert.Equal(t, tc.note, c.Text)
+	}
+}
+
+// TestNodeSize: a node is 32 bytes, as treeNodes and the Tree's doc
+// assume; a field added carelessly would make every page's tree larger.
+func TestNodeSize(t *testing.T) {
+	assert.Equal(t, uintptr(32), unsafe.Sizeof(node{}))
+	assert.Equal(t, 32<<10, treeNodes*int(unsafe.Sizeof(node{})))
 }

@@ -20,12 +20,38 @@ var (
 	quantityWords          = map[string]unit{} // lower-cased word or words joined by one space
 	quantityWordStarts     [256]bool           // first bytes of quantityWords, to skip most lookups
 	maxWordsInQuantityWord = 1
+
+	// quantityWordLens and quantityWordPairs hold the lengths and the
+	// first two bytes of the quantityWords: most words that start like
+	// one ("CCBr", "EtOH") fail these before a lookup.
+	quantityWordLens  [64]bool
+	quantityWordPairs [1 << 16 / 64]uint64
+
+	// unitNames and wordNames are the canonical units and words, indexed
+	// by unit.id: a Tree keeps the index, not the string.
+	unitNames = []string{""}
+	wordNames = []string{""}
 )
 
 // unit is one row of units.tsv or words.tsv.
 type unit struct {
 	kind QuantityKind
 	name string // canonical unit, or the word for words.tsv
+	id   uint8  // index of name in unitNames or wordNames
+}
+
+// nameID returns the index of name in *names, adding it if new.
+func nameID(names *[]string, name string) uint8 {
+	for i, n := range *names {
+		if n == name {
+			return uint8(i)
+		}
+	}
+	if len(*names) == 256 {
+		panic("notation: more than 255 canonical units or words")
+	}
+	*names = append(*names, name)
+	return uint8(len(*names) - 1)
 }
 
 func init() {
@@ -34,7 +60,7 @@ func init() {
 		kinds[k.String()] = k
 	}
 	for _, row := range tsvRows(unitsTSV) {
-		u := unit{kinds[row[1]], row[2]}
+		u := unit{kind: kinds[row[1]], name: row[2], id: nameID(&unitNames, row[2])}
 		if u.kind == 0 || len(row) < 5 {
 			panic("notation: bad row in units.tsv: " + strings.Join(row, "\t"))
 		}
@@ -44,13 +70,19 @@ func init() {
 		}
 	}
 	for _, row := range tsvRows(wordsTSV) {
-		u := unit{kinds[row[1]], row[2]}
+		u := unit{kind: kinds[row[1]], name: row[2], id: nameID(&wordNames, row[2])}
 		if u.kind == 0 || len(row) < 4 {
 			panic("notation: bad row in words.tsv: " + strings.Join(row, "\t"))
 		}
 		for _, w := range strings.Split(row[0], "|") {
 			quantityWords[w] = u
 			quantityWordStarts[w[0]] = true
+			if len(w) < 2 || len(w) >= len(quantityWordLens) {
+				panic("notation: quantity word of unexpected length in words.tsv: " + w)
+			}
+			quantityWordLens[len(w)] = true
+			pair := uint16(lowerByte(w[0]))<<8 | uint16(lowerByte(w[1]))
+			quantityWordPairs[pair/64] |= 1 << (pair % 64)
 			maxWordsInQuantityWord = max(maxWordsInQuantityWord, strings.Count(w, " ")+1)
 		}
 	}
@@ -82,6 +114,21 @@ func lookupUnit(s string) (unit, bool) {
 	return u, ok
 }
 
+// quantityWordPair reports whether a word of words.tsv starts with the
+// bytes a, b, regardless of ASCII case.
+func quantityWordPair(a, b byte) bool {
+	pair := uint16(lowerByte(a))<<8 | uint16(lowerByte(b))
+	return quantityWordPairs[pair/64]&(1<<(pair%64)) != 0
+}
+
+// lowerByte returns c in lower case if it is an ASCII letter.
+func lowerByte(c byte) byte {
+	if 'A' <= c && c <= 'Z' {
+		c += 'a' - 'A'
+	}
+	return c
+}
+
 // lowerASCII appends s to b with ASCII letters in lower case; the unit
 // and word tables hold no other letters that fold.
 func lowerASCII(b []byte, s string) []byte {
@@ -99,6 +146,20 @@ func lowerASCII(b []byte, s string) []byte {
 // without regard to ASCII case.
 func (p *parser) quantityWord(ws []tok) (unit, bool) {
 	if c := p.src[ws[0].start]; !quantityWordStarts[c|0x20] && !quantityWordStarts[c] {
+		return unit{}, false
+	}
+	n := len(ws) - 1 // the spaces joining the words
+	for _, w := range ws {
+		n += w.end - w.start
+	}
+	if n >= len(quantityWordLens) || !quantityWordLens[n] {
+		return unit{}, false
+	}
+	second := byte(' ')
+	if first := ws[0]; first.end-first.start > 1 {
+		second = p.src[first.start+1]
+	}
+	if !quantityWordPair(p.src[ws[0].start], second) {
 		return unit{}, false
 	}
 	var buf [48]byte
@@ -139,6 +200,9 @@ func readNumber(w string) (number, bool) {
 	}
 	n.value, n.end = v, end
 	rest := w[end:]
+	if rest == "" || rest[0] != '-' && rest[0] != '~' && rest[0] != 0xE2 {
+		return n, true // no range: the common case
+	}
 	for _, dash := range []string{"-", "–", "−", "~"} {
 		if strings.HasPrefix(rest, dash) {
 			after := rest[len(dash):]
@@ -159,10 +223,12 @@ func isDigitByte(c byte) bool { return '0' <= c && c <= '9' }
 // readSigned reads a decimal number with an optional sign.
 func readSigned(w string) (float64, int, bool) {
 	i, neg := 0, false
-	for _, sign := range []string{"-", "−", "–", "+"} {
-		if strings.HasPrefix(w, sign) {
-			i, neg = len(sign), sign != "+"
-			break
+	if w != "" && !isDigitByte(w[0]) { // a digit first: the common case
+		for _, sign := range []string{"-", "−", "–", "+"} {
+			if strings.HasPrefix(w, sign) {
+				i, neg = len(sign), sign != "+"
+				break
+			}
 		}
 	}
 	start, digits := i, 0
@@ -221,21 +287,31 @@ func exactDecimal(s string, digits int) (float64, bool) {
 	return float64(m) / exactPow10[max(frac, 0)], true
 }
 
-// readRatio reads "4:1" or "1:1:2".
-func readRatio(w string) ([]float64, bool) {
-	if !strings.Contains(w, ":") {
-		return nil, false
+// readRatio reads "4:1" or "1:1:2" into p.nums and returns the range of
+// its parts there.
+func (p *parser) readRatio(w string) (int32, int32, bool) {
+	if strings.IndexByte(w, ':') < 0 {
+		return 0, 0, false
 	}
-	parts := strings.Split(w, ":")
-	out := make([]float64, 0, len(parts))
-	for _, p := range parts {
-		v, end, ok := readSigned(p)
-		if !ok || end != len(p) || strings.ContainsAny(p[:1], "-−–+") {
-			return nil, false
+	r0 := len(p.nums)
+	for rest := w; ; {
+		part := rest
+		k := strings.IndexByte(rest, ':')
+		if k >= 0 {
+			part = rest[:k]
 		}
-		out = append(out, v)
+		v, end, ok := readSigned(part)
+		if !ok || end != len(part) || strings.ContainsAny(part[:1], "-−–+") {
+			p.nums = p.nums[:r0]
+			return 0, 0, false
+		}
+		p.nums = append(p.nums, v)
+		if k < 0 {
+			break
+		}
+		rest = rest[k+1:]
 	}
-	return out, true
+	return int32(r0), int32(len(p.nums)), true
 }
 
 // isLabelByte reports whether c may appear in a step label: ASCII letters,

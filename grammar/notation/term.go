@@ -10,21 +10,14 @@ import (
 // term reads the tokens between two separators: quantities (wherever
 // they stand), parenthesised groups, and the words left over, which name
 // the substance.
-func (p *parser) term(toks []tok, sep *Sep) *Term {
+func (p *parser) term(toks []tok, sep Sep) *draftTerm {
 	t := p.newTerm()
 	t.Span = p.span(toks[0].start, toks[len(toks)-1].end)
-	if sep != nil {
-		t.sep = *sep // kept in the term: one allocation fewer
-		t.Sep = &t.sep
-	}
-	// The term's quantities are appended to the parser's shared list and
-	// taken as one capped sub-slice at the end: no allocation per term.
-	qmark := len(p.qptr)
-	if cap(p.qptr)-qmark < 8 {
-		p.qptr = make([]*Quantity, 0, max(p.slabSize(), 8)*2)
-		qmark = 0
-	}
-	var subBuf [2]*Substance
+	t.sep = sep
+	// The term's quantities and notes are appended to the parser's shared
+	// lists, and the term keeps their ranges.
+	t.q0, t.n0 = int32(len(p.qlist)), int32(len(p.notes))
+	var subBuf [2]*draftSubstance
 	subs := subBuf[:0]
 	run := -1 // start in toks of the words not yet taken, or -1
 	for k := 0; k <= len(toks); {
@@ -35,7 +28,7 @@ func (p *parser) term(toks []tok, sep *Sep) *Term {
 			break
 		}
 		tk := toks[k]
-		var q *Quantity
+		var q *draftQuantity
 		var n int
 		var errs source.ErrorList
 		if tk.kind == tWord && p.src[tk.start] != '@' {
@@ -55,33 +48,35 @@ func (p *parser) term(toks []tok, sep *Sep) *Term {
 		}
 		switch {
 		case q != nil:
-			p.qptr = append(p.qptr, q)
+			p.qlist = append(p.qlist, q.id)
 			p.errs = append(p.errs, errs...)
 			k += n
 		case tk.kind == tGroup:
-			p.group(t, tk)
+			p.group(tk)
 			k++
 		default:
 			subs = append(subs, p.reference(tk))
 			k++
 		}
 	}
-	if n := len(p.qptr); n > qmark {
-		t.Quantities = p.qptr[qmark:n:n]
-	}
+	t.q1, t.n1 = int32(len(p.qlist)), int32(len(p.notes))
 	if len(subs) > 0 {
-		t.Substance = subs[0]
+		t.sub = ref(subs[0].id)
 		for _, s := range subs[1:] {
 			p.errorf(int(s.Span.Start-p.base), int(s.Span.End-p.base), "two-substances",
 				"second substance %s in one term after %s; separate substances with ' + ' (a reactant) or ', ' (a condition)",
-				quote(s.Text), quote(subs[0].Text))
+				quote(p.substanceText(s)), quote(p.substanceText(subs[0])))
 		}
 	}
-	if s := t.Substance; s != nil && s.Kind == Mixture {
-		for k, q := range t.Quantities {
-			if q.Kind == Ratio {
-				s.Ratio = q
-				t.Quantities = append(t.Quantities[:k:k], t.Quantities[k+1:]...)
+	if s := p.sub(t.sub); s != nil && s.Kind == Mixture {
+		for k := t.q0; k < t.q1; k++ {
+			if id := p.qlist[k]; p.qtyDrafts.at(id).Kind == Ratio {
+				// The term's quantities are the last of p.qlist: the
+				// ratio is taken out of them.
+				s.ratio = ref(id)
+				copy(p.qlist[k:], p.qlist[k+1:])
+				p.qlist = p.qlist[:len(p.qlist)-1]
+				t.q1--
 				break
 			}
 		}
@@ -123,10 +118,10 @@ func (p *parser) wordChecks(tk tok) {
 }
 
 // reference reads "@label".
-func (p *parser) reference(tk tok) *Substance {
+func (p *parser) reference(tk tok) *draftSubstance {
 	name := p.str[tk.start+1 : tk.end]
 	s := p.newSubstance()
-	s.Span, s.Kind, s.Text = p.span(tk.start, tk.end), Reference, name
+	s.Span, s.Kind = p.span(tk.start, tk.end), Reference
 	if name == "" {
 		p.errorf(tk.start, tk.end, "reference-empty", "'@' with no label after it; write the label of an earlier step, as in '@mesylate'")
 		return s
@@ -147,8 +142,20 @@ func (p *parser) reference(tk tok) *Substance {
 // words.tsv or "at"/"for".
 func (p *parser) mayStartQuantity(t tok) bool {
 	c := p.src[t.start]
-	return isDigitByte(c) || c == '-' || c == '+' || c == '.' || c >= utf8.RuneSelf ||
-		quantityWordStarts[c|0x20] || c|0x20 == 'a' || c|0x20 == 'f'
+	if isDigitByte(c) || c == '-' || c == '+' || c == '.' || c >= utf8.RuneSelf {
+		return true
+	}
+	// Anything else starts only a word of words.tsv, whose first two
+	// bytes are known, or "at"/"for" before a quantity.
+	w := p.str[t.start:t.end]
+	if strings.EqualFold(w, "at") || strings.EqualFold(w, "for") {
+		return true
+	}
+	second := byte(' ') // a word of one letter is followed by the joining space
+	if len(w) > 1 {
+		second = w[1]
+	}
+	return quantityWordPair(c, second)
 }
 
 // quantity reads a quantity starting at toks[k]: a word such as "rt", a
@@ -157,7 +164,7 @@ func (p *parser) mayStartQuantity(t tok) bool {
 // quantity, how many tokens it used, and the errors to report if the
 // caller keeps it; nil when toks[k] does not start a quantity. When
 // ranges is false it does not look for "to" (the upper end of a range).
-func (p *parser) quantity(toks []tok, k int, ranges bool) (*Quantity, int, source.ErrorList) {
+func (p *parser) quantity(toks []tok, k int, ranges bool) (*draftQuantity, int, source.ErrorList) {
 	if k >= len(toks) || toks[k].kind != tWord || !p.mayStartQuantity(toks[k]) {
 		return nil, 0, nil
 	}
@@ -185,9 +192,9 @@ func (p *parser) quantity(toks []tok, k int, ranges bool) (*Quantity, int, sourc
 		toTok := toks[k+n]
 		if to, m, e2 := p.quantity(toks, k+n+1, false); to != nil && (to.Kind == q.Kind || q.Kind == Bare || to.Kind == Bare) {
 			if q.Kind == Bare {
-				q.Kind, q.Unit = to.Kind, to.Unit
+				q.Kind, q.unit = to.Kind, to.unit
 			}
-			q.To = to
+			q.to = ref(to.id)
 			q.Span.End = to.Span.End
 			return q, n + 1 + m, append(errs, e2...)
 		}
@@ -206,19 +213,19 @@ func (p *parser) quantity(toks []tok, k int, ranges bool) (*Quantity, int, sourc
 // single reads one quantity without a range from the words ws. last
 // says that ws[0] is the last word of its term, where a number alone is
 // a quantity missing its unit rather than the start of a name ("4 Å MS").
-func (p *parser) single(ws []tok, last bool) (*Quantity, int) {
+func (p *parser) single(ws []tok, last bool) (*draftQuantity, int) {
 	// Words standing for quantities, longest first.
 	for n := min(maxWordsInQuantityWord, len(ws)); n >= 1; n-- {
 		if u, ok := p.quantityWord(ws[:n]); ok {
 			q := p.newQuantity()
-			q.Span, q.Kind, q.Word = p.span(ws[0].start, ws[n-1].end), u.kind, u.name
+			q.Span, q.Kind, q.word = p.span(ws[0].start, ws[n-1].end), u.kind, u.id
 			return q, n
 		}
 	}
 	w := p.text(ws[0])
-	if r, ok := readRatio(w); ok {
+	if r0, r1, ok := p.readRatio(w); ok {
 		q := p.newQuantity()
-		q.Span, q.Kind, q.Ratio = p.span(ws[0].start, ws[0].end), Ratio, r
+		q.Span, q.Kind, q.r0, q.r1 = p.span(ws[0].start, ws[0].end), Ratio, r0, r1
 		if len(ws) > 1 && strings.EqualFold(p.text(ws[1]), "v/v") {
 			q.Span.End = p.span(ws[1].start, ws[1].end).End
 			return q, 2
@@ -231,14 +238,16 @@ func (p *parser) single(ws []tok, last bool) (*Quantity, int) {
 	}
 	q := p.newQuantity()
 	q.Span, q.Value, q.HasValue = p.span(ws[0].start, ws[0].end), num.value, true
+	var to *draftQuantity
 	if num.hasTo {
-		q.To = p.newQuantity()
-		q.To.Span, q.To.Value, q.To.HasValue = p.span(ws[0].start+num.toStart, ws[0].start+num.end), num.to, true
+		to = p.newQuantity()
+		to.Span, to.Value, to.HasValue = p.span(ws[0].start+num.toStart, ws[0].start+num.end), num.to, true
+		q.to = ref(to.id)
 	}
 	setUnit := func(u unit, a, b int) {
-		q.Kind, q.Unit, q.UnitSpan = u.kind, u.name, p.span(a, b)
-		if q.To != nil {
-			q.To.Kind, q.To.Unit = u.kind, u.name
+		q.Kind, q.unit, q.UnitSpan = u.kind, u.id, p.span(a, b)
+		if to != nil {
+			to.Kind, to.unit = u.kind, u.id
 		}
 	}
 	if w[num.end:] == "." {
@@ -284,7 +293,7 @@ func (p *parser) single(ws []tok, last bool) (*Quantity, int) {
 
 // group reads a parenthesised group: quantities separated by commas, or
 // else a note.
-func (p *parser) group(t *Term, g tok) {
+func (p *parser) group(g tok) {
 	innerEnd := g.end
 	if g.closed {
 		innerEnd--
@@ -307,23 +316,22 @@ func (p *parser) group(t *Term, g tok) {
 		if len(piece) == 0 {
 			return
 		}
-		var qs []*Quantity
 		var errs source.ErrorList
+		mark := len(p.qlist)
 		for k := 0; k < len(piece); {
 			q, n, e := p.quantity(piece, k, true)
 			if q == nil {
-				qs = nil
+				p.qlist = p.qlist[:mark]
 				break
 			}
-			qs, errs = append(qs, q), append(errs, e...)
+			p.qlist, errs = append(p.qlist, q.id), append(errs, e...)
 			k += n
 		}
-		if qs != nil {
-			p.qptr = append(p.qptr, qs...)
+		if len(p.qlist) > mark {
 			p.errs = append(p.errs, errs...)
 		} else {
 			a, b := piece[0].start, piece[len(piece)-1].end
-			t.Notes = append(t.Notes, &Note{Span: p.span(a, b), Text: p.str[a:b]})
+			p.notes = append(p.notes, p.span(a, b))
 		}
 		piece = piece[:0]
 	}
@@ -340,22 +348,18 @@ func (p *parser) group(t *Term, g tok) {
 // substance reads a run of words that are not quantities: one word
 // (SMILES or a name), a phrase (a name of several words), or a mixture
 // of such parts joined by '/' or a dash ("THF/water", "acetone–water").
-func (p *parser) substance(run []tok) *Substance {
+func (p *parser) substance(run []tok) *draftSubstance {
 	if !p.anyJoins(run) {
 		s := p.newSubstance()
 		first, last := run[0], run[len(run)-1]
-		s.Span, s.Kind, s.Text = p.span(first.start, last.end), Word, p.str[first.start:last.end]
+		s.Span, s.Kind, s.plain = p.span(first.start, last.end), Word, true
 		if len(run) == 1 {
 			return s
 		}
 		s.Kind = Phrase
 		for i := 1; i < len(run); i++ {
 			if run[i].start != run[i-1].end+1 || p.src[run[i-1].end] != ' ' {
-				words := make([]string, len(run))
-				for i, tk := range run {
-					words[i] = p.text(tk)
-				}
-				s.Text = strings.Join(words, " ")
+				s.plain = false // words apart by other spaces: the text joins them by one
 				break
 			}
 		}
@@ -385,23 +389,16 @@ func (p *parser) substance(run []tok) *Substance {
 	}
 	bounds = append(bounds, len(pieces))
 	plain = plain && len(run) == 1
-	build := func(ps []piece) *Substance {
+	build := func(ps []piece) *draftSubstance {
 		s := p.newSubstance()
-		s.Span, s.Kind, s.Text = p.span(ps[0].start, ps[len(ps)-1].end), Word, p.str[ps[0].start:ps[len(ps)-1].end]
+		s.Span, s.Kind, s.plain = p.span(ps[0].start, ps[len(ps)-1].end), Word, true
 		if len(ps) == 1 {
 			return s
 		}
 		s.Kind = Phrase
-		single := true // words one ASCII space apart: the source text is the name
 		for i := 1; i < len(ps); i++ {
-			single = single && ps[i].start == ps[i-1].end+1 && p.src[ps[i-1].end] == ' '
-		}
-		if !single {
-			words := make([]string, len(ps))
-			for i, pc := range ps {
-				words[i] = p.str[pc.start:pc.end]
-			}
-			s.Text = strings.Join(words, " ")
+			// words one ASCII space apart: the source text is the name
+			s.plain = s.plain && ps[i].start == ps[i-1].end+1 && p.src[ps[i-1].end] == ' '
 		}
 		return s
 	}
@@ -412,7 +409,8 @@ func (p *parser) substance(run []tok) *Substance {
 		return s
 	}
 	m := p.newSubstance()
-	m.Span, m.Kind, m.Parts = whole, Mixture, make([]*Substance, 0, len(bounds))
+	m.Span, m.Kind = whole, Mixture
+	m.p0 = int32(len(p.slist))
 	from := 0
 	for i, to := range bounds {
 		ps := pieces[from:to]
@@ -428,17 +426,12 @@ func (p *parser) substance(run []tok) *Substance {
 			plain = false
 			continue
 		}
-		m.Parts = append(m.Parts, build(ps))
+		p.slist = append(p.slist, build(ps).id)
 	}
-	if plain {
-		m.Text = p.str[run[0].start:run[0].end]
-	} else {
-		texts := make([]string, len(m.Parts))
-		for i, part := range m.Parts {
-			texts[i] = part.Text
-		}
-		m.Text = strings.Join(texts, "/")
-	}
+	m.p1 = int32(len(p.slist))
+	// A plain mixture's text is its one word; any other's is its parts'
+	// texts joined by '/'.
+	m.plain = plain
 	return m
 }
 

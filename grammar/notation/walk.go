@@ -2,50 +2,53 @@ package notation
 
 // Inspect calls f for every node of st in source order, depth first,
 // starting with st itself; when f returns false for a node its children
-// are skipped. Nil parts are not visited.
-func Inspect(st *Step, f func(Node) bool) {
+// are skipped. Absent parts are not visited. The nodes are values: Step,
+// Mark, Label, Sep, Term, Substance, Quantity, Note, Arrow and Comment.
+func Inspect(st Step, f func(Node) bool) {
 	if !f(st) {
 		return
 	}
-	if st.Mark != nil {
-		f(st.Mark)
+	if m, ok := st.Mark(); ok {
+		f(m)
 	}
-	if st.Label != nil {
-		f(st.Label)
+	if l, ok := st.Label(); ok {
+		f(l)
 	}
-	terms := func(ts []*Term) {
-		for _, t := range ts {
-			inspectTerm(t, f)
+	terms := func(ts Terms) {
+		for k := range ts.Len() {
+			inspectTerm(ts.At(k), f)
 		}
 	}
-	terms(st.Reactants)
-	terms(st.Conditions)
-	if st.Arrow != nil {
-		f(st.Arrow)
+	terms(st.Reactants())
+	terms(st.Conditions())
+	if a, ok := st.Arrow(); ok {
+		f(a)
 	}
-	terms(st.Products)
-	if st.Comment != nil {
-		f(st.Comment)
+	terms(st.Products())
+	if c, ok := st.Comment(); ok {
+		f(c)
 	}
 }
 
-func inspectTerm(t *Term, f func(Node) bool) {
-	if t.Sep != nil {
-		f(t.Sep)
+func inspectTerm(t Term, f func(Node) bool) {
+	if sep, ok := t.Sep(); ok {
+		f(sep)
 	}
 	if !f(t) {
 		return
 	}
 	// Children in source order: amounts may stand before the substance.
 	var kids []Node
-	if t.Substance != nil {
-		kids = append(kids, t.Substance)
+	if s, ok := t.Substance(); ok {
+		kids = append(kids, s)
 	}
-	for _, q := range t.Quantities {
-		kids = append(kids, q)
+	qs := t.Quantities()
+	for k := range qs.Len() {
+		kids = append(kids, qs.At(k))
 	}
-	for _, n := range t.Notes {
-		kids = append(kids, n)
+	ns := t.Notes()
+	for k := range ns.Len() {
+		kids = append(kids, ns.At(k))
 	}
 	for i := 1; i < len(kids); i++ {
 		for j := i; j > 0 && kids[j].Pos() < kids[j-1].Pos(); j-- {
@@ -54,9 +57,9 @@ func inspectTerm(t *Term, f func(Node) bool) {
 	}
 	for _, k := range kids {
 		switch k := k.(type) {
-		case *Substance:
+		case Substance:
 			inspectSubstance(k, f)
-		case *Quantity:
+		case Quantity:
 			inspectQuantity(k, f)
 		default:
 			f(k)
@@ -64,20 +67,24 @@ func inspectTerm(t *Term, f func(Node) bool) {
 	}
 }
 
-func inspectSubstance(s *Substance, f func(Node) bool) {
+func inspectSubstance(s Substance, f func(Node) bool) {
 	if !f(s) {
 		return
 	}
-	for _, p := range s.Parts {
-		inspectSubstance(p, f)
+	parts := s.Parts()
+	for k := range parts.Len() {
+		inspectSubstance(parts.At(k), f)
 	}
-	if s.Ratio != nil {
-		inspectQuantity(s.Ratio, f)
+	if r, ok := s.Ratio(); ok {
+		inspectQuantity(r, f)
 	}
 }
 
-func inspectQuantity(q *Quantity, f func(Node) bool) {
-	if f(q) && q.To != nil {
-		inspectQuantity(q.To, f)
+func inspectQuantity(q Quantity, f func(Node) bool) {
+	if !f(q) {
+		return
+	}
+	if to, ok := q.To(); ok {
+		inspectQuantity(to, f)
 	}
 }

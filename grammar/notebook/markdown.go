@@ -27,9 +27,14 @@ func FindMarkdown(text []byte) *Page {
 	if binary(text, pg) {
 		return pg
 	}
-	var items []int // content columns of the open list items, innermost last
-	var f *fence    // the fenced block we are in, or nil
-	it := lineIter{text: text, next: skipBOM(text)}
+	var itemBuf [8]int
+	items := itemBuf[:0] // content columns of the open list items, innermost last
+	var f fence          // the fenced block we are in, when inFence
+	inFence := false
+	it := newLineIter(text)
+	// The lines of the text bound its step lines: room for that many
+	// saves growing the list a dozen times over on a long page.
+	pg.Lines = make([]Line, 0, it.lines)
 	for {
 		start, end, ok := it.line()
 		if !ok {
@@ -37,17 +42,17 @@ func FindMarkdown(text []byte) *Page {
 		}
 		col, first := indentation(text, start, end)
 		blank := first == end
-		if f != nil {
+		if inFence {
 			if !blank && col < f.base {
 				f.unclosed(pg, "its list item ends first")
-				f = nil
+				inFence = false
 			} else {
 				if !blank && col-f.base <= 3 && f.closedBy(text, first, end) {
 					if f.reaction {
 						b := &pg.Blocks[f.block]
 						b.Closed, b.Span.End = true, span(first, end).End
 					}
-					f = nil
+					inFence = false
 					continue
 				}
 				if f.reaction {
@@ -96,17 +101,17 @@ func FindMarkdown(text []byte) *Page {
 		if col-base >= 4 {
 			continue // indented code, not a fence
 		}
-		if nf := openFence(text, i, end); nf != nil {
+		if nf, ok := openFence(text, i, end); ok {
 			nf.base = base
 			if nf.reaction {
 				nf.block = len(pg.Blocks)
 				a, b := trimLine(text, i, end)
 				pg.Blocks = append(pg.Blocks, Block{Span: span(a, b), Fence: span(a, b)})
 			}
-			f = nf
+			f, inFence = nf, true
 		}
 	}
-	if f != nil {
+	if inFence {
 		f.unclosed(pg, "the text ends first")
 	}
 	return pg
@@ -149,27 +154,28 @@ func (f *fence) closedBy(text []byte, i, end int) bool {
 	return true
 }
 
-// openFence reads an opening fence at text[i:end], or returns nil.
-func openFence(text []byte, i, end int) *fence {
+// openFence reads an opening fence at text[i:end]; ok is false when
+// there is none.
+func openFence(text []byte, i, end int) (f fence, ok bool) {
 	if i >= end || text[i] != '`' && text[i] != '~' {
-		return nil
+		return fence{}, false
 	}
 	c, n := text[i], 0
 	for i+n < end && text[i+n] == c {
 		n++
 	}
 	if n < 3 {
-		return nil
+		return fence{}, false
 	}
 	info := bytes.TrimSpace(text[i+n : end])
 	if c == '`' && bytes.IndexByte(info, '`') >= 0 {
-		return nil // an inline code span, not a fence
+		return fence{}, false // an inline code span, not a fence
 	}
 	word := info
 	if k := bytes.IndexAny(info, " \t"); k >= 0 {
 		word = info[:k]
 	}
-	return &fence{char: c, n: n, reaction: bytes.EqualFold(word, []byte("reaction"))}
+	return fence{char: c, n: n, reaction: bytes.EqualFold(word, []byte("reaction"))}, true
 }
 
 // listMarker returns the width of a list item marker at text[i:end]

@@ -119,8 +119,22 @@ func binary(text []byte, pg *Page) bool {
 // lineIter walks the lines of a text; each line ends at "\n", "\r\n" or
 // a lone "\r", as in source.Mapper.
 type lineIter struct {
-	text []byte
-	next int
+	text  []byte
+	next  int
+	cr    bool // the text holds a '\r'
+	lines int  // the number of lines, at most
+}
+
+// newLineIter returns an iterator over the lines of text after any byte
+// order mark. Counting and looking for '\r' once, with the vectorised
+// searches, is cheaper than asking again on every line.
+func newLineIter(text []byte) lineIter {
+	it := lineIter{text: text, next: skipBOM(text), cr: bytes.IndexByte(text, '\r') >= 0}
+	it.lines = bytes.Count(text, []byte{'\n'}) + 1
+	if it.cr {
+		it.lines += bytes.Count(text, []byte{'\r'})
+	}
+	return it
 }
 
 // line returns the next line's start and the end of its text (before the
@@ -138,8 +152,10 @@ func (it *lineIter) line() (start, end int, ok bool) {
 	if i < 0 {
 		i = len(rest)
 	}
-	if j := bytes.IndexByte(rest[:i], '\r'); j >= 0 {
-		i = j
+	if it.cr {
+		if j := bytes.IndexByte(rest[:i], '\r'); j >= 0 {
+			i = j
+		}
 	}
 	if i == len(rest) {
 		it.next = len(it.text)

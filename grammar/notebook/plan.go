@@ -7,7 +7,8 @@ func FindPlan(text []byte) *Page {
 	if binary(text, pg) {
 		return pg
 	}
-	it := lineIter{text: text, next: skipBOM(text)}
+	it := newLineIter(text)
+	pg.Lines = make([]Line, 0, it.lines)
 	for {
 		start, end, ok := it.line()
 		if !ok {

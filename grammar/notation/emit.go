@@ -1,0 +1,193 @@
+package notation
+
+import (
+	"math"
+
+	"walden/grammar/source"
+)
+
+// emit appends the drafted step p.st to the nodes of t and returns the
+// index of its node. A step's nodes form one block: the step, its
+// optional parts, its terms (reactants, conditions, products), then each
+// term's children, so that every list a handle reads is contiguous.
+func (p *parser) emit(t *Tree) int32 {
+	st := &p.st
+	// The nodes are appended to a slice on the stack and stored back
+	// once: storing a slice into the Tree on every append would pass the
+	// garbage collector's write barrier each time.
+	e := &emitter{p: p, base: t.base, nodes: t.nodes}
+	defer func() { t.nodes = e.nodes }()
+	si := e.add(nStep, st.Span)
+	var flags uint8
+	if st.hasMark {
+		flags |= hasMark
+		k := e.add(nMark, st.mark.Span)
+		e.nodes[k].sub = uint8(st.mark.State)
+	}
+	if st.hasLabel {
+		flags |= hasLabel
+		e.add(nLabel, st.label)
+	}
+	if st.hasArrow {
+		flags |= hasArrow
+		e.add(nArrow, st.arrow)
+	}
+	if st.hasComment {
+		flags |= hasComment
+		e.add(nComment, st.comment)
+	}
+	first := e.next()
+	for _, id := range p.order {
+		e.add(nTerm, p.termDrafts.at(id).Span)
+	}
+	for k, id := range p.order {
+		e.term(first+int32(k), p.termDrafts.at(id))
+	}
+	n := &e.nodes[si]
+	n.flags = flags
+	n.a, n.b, n.c = int32(st.nR), int32(st.nC), int32(st.nP)
+	return si
+}
+
+// emitter appends the nodes of a step to those of a Tree.
+type emitter struct {
+	p     *parser
+	base  source.Pos // the Tree's base
+	nodes []node
+}
+
+func (e *emitter) next() int32 { return int32(len(e.nodes)) }
+
+func (e *emitter) rel(p source.Pos) int32 { return int32(p - e.base) }
+
+// add appends a node of kind k at the host span sp and returns its index.
+func (e *emitter) add(k nodeKind, sp source.Span) int32 {
+	i := e.next()
+	e.nodes = append(e.nodes, node{kind: k, start: e.rel(sp.Start), end: e.rel(sp.End)})
+	return i
+}
+
+// term fills the term node ti from d and appends its children: the
+// substance, the quantities and the notes, then what they hold.
+func (e *emitter) term(ti int32, d *draftTerm) {
+	first := e.next()
+	s := e.p.sub(d.sub)
+	var flags uint8
+	if s != nil {
+		flags = termSubstance
+		e.add(nSubstance, s.Span)
+	}
+	qs := e.next()
+	qids := e.p.qlist[d.q0:d.q1]
+	for _, id := range qids {
+		e.add(nQuantity, e.p.qtyDrafts.at(id).Span)
+	}
+	for _, sp := range e.p.notes[d.n0:d.n1] {
+		e.add(nNote, sp)
+	}
+	if s != nil {
+		e.substance(first, s)
+	}
+	for k, id := range qids {
+		e.quantity(qs+int32(k), e.p.qtyDrafts.at(id))
+	}
+	n := &e.nodes[ti]
+	if d.sep.Kind != 0 {
+		n.sub, n.x = uint8(d.sep.Kind), int64(e.rel(d.sep.Span.Start))
+	}
+	n.flags, n.a, n.b, n.c = flags, first-ti, d.q1-d.q0, d.n1-d.n0
+}
+
+// substance fills the substance node si from d and appends its parts
+// and its ratio.
+func (e *emitter) substance(si int32, d *draftSubstance) {
+	parts := e.next()
+	for _, id := range e.p.slist[d.p0:d.p1] {
+		part := e.p.subDrafts.at(id)
+		k := e.add(nSubstance, part.Span)
+		e.nodes[k].sub = uint8(part.Kind)
+		e.nodes[k].flags = plainFlag(part)
+	}
+	var ratio int32
+	if r := e.p.qty(d.ratio); r != nil {
+		ratio = e.add(nQuantity, r.Span)
+		e.quantity(ratio, r)
+		ratio -= si
+	}
+	n := &e.nodes[si]
+	n.sub, n.flags = uint8(d.Kind), plainFlag(d)
+	n.a, n.b, n.c = ratio, parts-si, d.p1-d.p0
+}
+
+// plainFlag returns plainText when d's text is its source text, which is
+// then all the Tree keeps.
+func plainFlag(d *draftSubstance) uint8 {
+	if d.plain || d.Kind == Reference {
+		return plainText
+	}
+	return 0
+}
+
+// quantity fills the quantity node qi from d and appends its children.
+func (e *emitter) quantity(qi int32, d *draftQuantity) {
+	var to, b, c int32
+	if q := e.p.qty(d.to); q != nil {
+		to = e.add(nQuantity, q.Span)
+		e.quantity(to, q)
+		to -= qi
+	}
+	if d.Kind == Ratio {
+		b, c = e.next()-qi, d.r1-d.r0
+		at := e.rel(d.Span.Start)
+		for _, v := range e.p.nums[d.r0:d.r1] {
+			e.nodes = append(e.nodes, node{kind: nRatioPart, start: at, end: at, x: int64(math.Float64bits(v))})
+		}
+	} else {
+		b, c = e.rel(d.UnitSpan.Start), e.rel(d.UnitSpan.End)
+	}
+	n := &e.nodes[qi]
+	n.sub, n.x = uint8(d.Kind), int64(math.Float64bits(d.Value))
+	if d.HasValue {
+		n.flags, n.unit = hasValue, d.unit
+	} else {
+		n.unit = d.word // a quantity with no value has no unit
+	}
+	n.a, n.b, n.c = to, b, c
+}
+
+// size returns the number of nodes emit writes for p.st.
+func (p *parser) size() int {
+	st := &p.st
+	n := 1 + len(p.order)
+	for _, has := range [4]bool{st.hasMark, st.hasLabel, st.hasArrow, st.hasComment} {
+		if has {
+			n++
+		}
+	}
+	for _, id := range p.order {
+		t := p.termDrafts.at(id)
+		n += int(t.n1 - t.n0)
+		if s := p.sub(t.sub); s != nil {
+			n += 1 + int(s.p1-s.p0)
+			if r := p.qty(s.ratio); r != nil {
+				n += p.qtySize(r)
+			}
+		}
+		for _, q := range p.qlist[t.q0:t.q1] {
+			n += p.qtySize(p.qtyDrafts.at(q))
+		}
+	}
+	return n
+}
+
+// qtySize returns the number of nodes emit writes for q.
+func (p *parser) qtySize(q *draftQuantity) int {
+	n := 1
+	if q.Kind == Ratio {
+		n += int(q.r1 - q.r0)
+	}
+	if to := p.qty(q.to); to != nil {
+		n += p.qtySize(to)
+	}
+	return n
+}

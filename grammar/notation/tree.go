@@ -1,0 +1,127 @@
+package notation
+
+import (
+	"math"
+
+	"walden/grammar/source"
+)
+
+// Tree holds the syntax of one or more step lines: the text they were
+// read from, once, and their nodes as small records in one slice. A
+// node refers to its children by their distance in the slice and to its
+// text by offsets, and holds no pointer, so that a page of ten thousand
+// steps is some hundred allocations the garbage collector need not scan,
+// rather than a hundred thousand small ones it must. Node handles (Step,
+// Term, Substance, Quantity) read the records on demand; texts such as
+// a substance's are slices of the Tree's text, made only when asked for.
+//
+// A Tree is never changed once built, so it may be read by several
+// goroutines at once.
+type Tree struct {
+	src   string     // the text the nodes' offsets index
+	base  source.Pos // host offset of src[0]
+	nodes []node
+}
+
+// nodeKind is the kind of a node record.
+type nodeKind uint8
+
+const (
+	nStep nodeKind = iota + 1
+	nMark
+	nLabel
+	nArrow
+	nComment
+	nTerm
+	nSubstance
+	nQuantity
+	nNote
+	nRatioPart
+)
+
+// node is one record of a Tree, 32 bytes. Offsets (start, end, and the
+// spans kept in b, c and x) are relative to Tree.base; child references
+// are distances forward from the node, 0 meaning none. The other fields
+// mean, by kind:
+//
+//	step:      a, b, c the number of reactants, conditions, products;
+//	           flags the optional parts (mark, label, arrow, comment),
+//	           whose nodes follow the step's in this order, and then
+//	           the terms
+//	mark:      sub the MarkState
+//	term:      sub the SepKind (0: no separator), x its offset; a the
+//	           first child: the substance if flags has termSubstance,
+//	           then b quantities, then c notes
+//	substance: sub the SubstanceKind; flags plainText; a the ratio;
+//	           b the first part, c their number
+//	quantity:  sub the QuantityKind; flags hasValue; unit the unit's id
+//	           if it has a value, else the word's; a the upper end of a
+//	           range; b, c the unit's span (for a ratio: the first part
+//	           and their number); x the value's bits
+//	ratio part: x the part's bits
+type node struct {
+	kind       nodeKind
+	sub        uint8
+	flags      uint8
+	unit       uint8
+	start, end int32
+	a, b, c    int32
+	x          int64
+}
+
+// value returns the float64 kept in x.
+func (n *node) value() float64 { return math.Float64frombits(uint64(n.x)) }
+
+func (t *Tree) pos(rel int32) source.Pos { return t.base + source.Pos(rel) }
+
+func (t *Tree) span(n *node) source.Span {
+	return source.Span{Start: t.base + source.Pos(n.start), End: t.base + source.Pos(n.end)}
+}
+
+// text returns the text at the host span sp.
+func (t *Tree) text(sp source.Span) string { return t.src[sp.Start-t.base : sp.End-t.base] }
+
+// singleSpaced returns the words of a Phrase, which lie apart by runs of
+// the spaces the lexer skips, joined by single ASCII spaces.
+func singleSpaced(s string) string {
+	b := make([]byte, 0, len(s))
+	for i := 0; i < len(s); {
+		if n := spaceLen(s[i:]); n > 0 {
+			for i < len(s) {
+				if n = spaceLen(s[i:]); n == 0 {
+					break
+				}
+				i += n
+			}
+			b = append(b, ' ')
+			continue
+		}
+		b = append(b, s[i])
+		i++
+	}
+	return string(b)
+}
+
+// spaceLen is the length of the space at the start of s, by the rule of
+// parser.spaceAt, or 0.
+func spaceLen(s string) int {
+	if s == "" {
+		return 0
+	}
+	switch s[0] {
+	case ' ', '\t':
+		return 1
+	case 0xC2:
+		if len(s) > 1 && s[1] == 0xA0 {
+			return 2
+		}
+	case 0xE2:
+		if len(s) > 2 && s[1] == 0x80 {
+			switch s[2] {
+			case 0x82, 0x83, 0x89, 0xAF:
+				return 3
+			}
+		}
+	}
+	return 0
+}
