@@ -114,7 +114,7 @@ func (e *Engine) Analyze(ctx context.Context, srcs []Source) ([]*Report, error) 
 }
 
 // AnalyzeLines is Analyze for a caller that reads each step line's
-// findings through Report.Lines, as the language server does after every
+// findings through Report.AppendLines, as the language server does after every
 // edit: its Reports leave Steps and Diagnostics empty, so an edit does not
 // rewrite the pieces of every line it moved; Report.Full builds them, once,
 // for the callers that need them. With codes disabled in the Config it

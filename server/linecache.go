@@ -245,7 +245,13 @@ func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindi
 	m := d.mapper
 	text := m.Text()
 	n := m.LineCount()
-	a := jsonArray{b: append(b, '[')}
+	// Room for the whole array at once: grown by appends, the 600 kB
+	// array of a long page would be copied a dozen times on opening it.
+	count := len(other)
+	for _, l := range lines {
+		count += len(l.Own) + len(l.Extra)
+	}
+	a := jsonArray{b: append(slices.Grow(b, count*diagnosticBytes), '[')}
 	k, o, used := 0, 0, 0
 	for _, l := range lines {
 		if len(l.Own) == 0 && len(l.Extra) == 0 {
@@ -306,6 +312,10 @@ func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindi
 	c.sweep(used)
 	return append(a.b, ']')
 }
+
+// diagnosticBytes is about what one diagnostic takes in JSON (its range,
+// code, message and related information), for sizing buffers.
+const diagnosticBytes = 400
 
 // joined returns a line's findings in host positions, sorted by start as
 // Report.Full sorts them.

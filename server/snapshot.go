@@ -69,7 +69,7 @@ func (s *snapshot) run() {
 			s.reports, s.err = nil, &panicError{what: "analysis of " + string(s.key), value: r, stack: stack()}
 		}
 	}()
-	// Publications read each line's findings (Report.Lines); requests
+	// Publications read each line's findings (Report.AppendLines); requests
 	// ask for the full Report (snapshot.report).
 	reps, err := s.engine.AnalyzeLines(s.ctx, s.sources())
 	switch {
