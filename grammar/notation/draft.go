@@ -82,7 +82,11 @@ func (s *slab[T]) get() (*T, int32) {
 }
 
 // at returns the draft with the given id.
-func (s *slab[T]) at(id int32) *T { return &s.chunks[id/slabChunk][id%slabChunk] }
+func (s *slab[T]) at(id int32) *T {
+	// Unsigned, the division and remainder are a shift and a mask.
+	u := uint32(id)
+	return &s.chunks[u/slabChunk][u%slabChunk]
+}
 
 // reset makes every draft free for the next line.
 func (s *slab[T]) reset() { s.c, s.n = 0, 0 }

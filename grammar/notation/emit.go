@@ -63,7 +63,12 @@ func (e *emitter) rel(p source.Pos) int32 { return int32(p - e.base) }
 // add appends a node of kind k at the host span sp and returns its index.
 func (e *emitter) add(k nodeKind, sp source.Span) int32 {
 	i := e.next()
-	e.nodes = append(e.nodes, node{kind: k, start: e.rel(sp.Start), end: e.rel(sp.End)})
+	// A zero node is appended and its fields set in place: a composite
+	// literal would be built on the stack and copied in wide loads that
+	// overlap its narrow stores, which stalls the processor on every node.
+	e.nodes = append(e.nodes, node{})
+	n := &e.nodes[i]
+	n.kind, n.start, n.end = k, e.rel(sp.Start), e.rel(sp.End)
 	return i
 }
 
@@ -140,7 +145,9 @@ func (e *emitter) quantity(qi int32, d *draftQuantity) {
 		b, c = e.next()-qi, d.r1-d.r0
 		at := e.rel(d.Span.Start)
 		for _, v := range e.p.nums[d.r0:d.r1] {
-			e.nodes = append(e.nodes, node{kind: nRatioPart, start: at, end: at, x: int64(math.Float64bits(v))})
+			e.nodes = append(e.nodes, node{}) // set in place, as in add
+			n := &e.nodes[len(e.nodes)-1]
+			n.kind, n.start, n.end, n.x = nRatioPart, at, at, int64(math.Float64bits(v))
 		}
 	} else {
 		b, c = e.rel(d.UnitSpan.Start), e.rel(d.UnitSpan.End)
@@ -155,39 +162,15 @@ func (e *emitter) quantity(qi int32, d *draftQuantity) {
 	n.a, n.b, n.c = to, b, c
 }
 
-// size returns the number of nodes emit writes for p.st.
-func (p *parser) size() int {
-	st := &p.st
-	n := 1 + len(p.order)
-	for _, has := range [4]bool{st.hasMark, st.hasLabel, st.hasArrow, st.hasComment} {
-		if has {
-			n++
-		}
-	}
-	for _, id := range p.order {
-		t := p.termDrafts.at(id)
-		n += int(t.n1 - t.n0)
-		if s := p.sub(t.sub); s != nil {
-			n += 1 + int(s.p1-s.p0)
-			if r := p.qty(s.ratio); r != nil {
-				n += p.qtySize(r)
-			}
-		}
-		for _, q := range p.qlist[t.q0:t.q1] {
-			n += p.qtySize(p.qtyDrafts.at(q))
-		}
-	}
-	return n
-}
-
-// qtySize returns the number of nodes emit writes for q.
-func (p *parser) qtySize(q *draftQuantity) int {
-	n := 1
-	if q.Kind == Ratio {
-		n += int(q.r1 - q.r0)
-	}
-	if to := p.qty(q.to); to != nil {
-		n += p.qtySize(to)
-	}
-	return n
+// emitScratch writes the drafted step into the parser's node buffer, as
+// the nodes of a Tree based at base, and returns them; the step's node
+// is the first. The buffer stays in the cache from line to line, and
+// its nodes are then copied at once into the Tree, whose size is known
+// only now: this is cheaper than walking the drafts to size the Tree
+// first, or writing the nodes one by one into memory just allocated.
+func (p *parser) emitScratch(base source.Pos) []node {
+	scratch := Tree{base: base, nodes: p.nodes[:0]}
+	p.emit(&scratch)
+	p.nodes = scratch.nodes
+	return p.nodes
 }

@@ -6,7 +6,7 @@ import (
 )
 
 // tokKind is the kind of a lexical token of a step line.
-type tokKind int
+type tokKind uint8
 
 const (
 	tWord  tokKind = iota + 1 // a run of non-space text: SMILES, name, number, unit
@@ -17,11 +17,12 @@ const (
 )
 
 // tok is a token with its byte range in the line. A group's range
-// includes its parentheses (the closing one may be missing).
+// includes its parentheses (the closing one may be missing). It is 24
+// bytes: tokens are appended and copied for every word of a line.
 type tok struct {
 	kind       tokKind
-	start, end int
 	closed     bool // for tGroup: the ')' was found
+	start, end int
 }
 
 // spaceAt returns the length of the whitespace character at i, or 0.
@@ -140,18 +141,21 @@ func (p *parser) lex(toks []tok, i, end int) []tok {
 			i += n
 			continue
 		}
-		if n := p.arrowAt(i, end); n > 0 {
-			toks = append(toks, tok{kind: tArrow, start: i, end: i + n})
-			i += n
-			continue
+		c := p.src[i]
+		if c == '-' || c == 0xE2 { // the first bytes of the arrows
+			if n := p.arrowAt(i, end); n > 0 {
+				toks = addTok(toks, tArrow, i, i+n)
+				i += n
+				continue
+			}
 		}
-		switch p.src[i] {
+		switch c {
 		case '+':
-			toks = append(toks, tok{kind: tPlus, start: i, end: i + 1})
+			toks = addTok(toks, tPlus, i, i+1)
 			i++
 			continue
 		case ',':
-			toks = append(toks, tok{kind: tComma, start: i, end: i + 1})
+			toks = addTok(toks, tComma, i, i+1)
 			i++
 			continue
 		case '(':
@@ -159,23 +163,45 @@ func (p *parser) lex(toks []tok, i, end int) []tok {
 			// parenthesis; "(1.5 eq)" stands apart and is a group.
 			close := p.matchParen(i, end)
 			if close < 0 {
-				toks = append(toks, tok{kind: tGroup, start: i, end: end})
+				toks = addTok(toks, tGroup, i, end)
 				i = end
 				continue
 			}
 			if p.breakAt(close+1, end) {
-				toks = append(toks, tok{kind: tGroup, start: i, end: close + 1, closed: true})
+				toks = addTok(toks, tGroup, i, close+1)
+				toks[len(toks)-1].closed = true
 				i = close + 1
 				continue
 			}
 		}
+		// Most bytes continue a word by the table alone, and the commonest
+		// others, a space that ends it or a hyphen that is no arrow, are
+		// decided here rather than by breakAt. src ends at end, which
+		// spares the loop a bounds check.
+		src := p.src[:end]
 		j := i
-		for j < end && (wordByte[p.src[j]] || !p.breakAt(j, end)) {
+		for j < len(src) {
+			c := src[j]
+			if c == ' ' || c == '\t' {
+				break
+			}
+			if !wordByte[c] && (c != '-' || j+1 < len(src) && src[j+1] == '>') && p.breakAt(j, end) {
+				break
+			}
 			j++
 		}
-		toks = append(toks, tok{kind: tWord, start: i, end: j})
+		toks = addTok(toks, tWord, i, j)
 		i = j
 	}
+	return toks
+}
+
+// addTok appends a token. Its fields are set in place, as in
+// emitter.add, rather than copied from a composite literal.
+func addTok(toks []tok, kind tokKind, start, end int) []tok {
+	toks = append(toks, tok{})
+	t := &toks[len(toks)-1]
+	t.kind, t.start, t.end = kind, start, end
 	return toks
 }
 

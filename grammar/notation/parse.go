@@ -38,6 +38,7 @@ type parser struct {
 	slist      []int32       // the mixtures' parts, by id
 	notes      []source.Span // the terms' notes
 	nums       []float64     // the ratios' parts
+	nodes      []node        // Parse's nodes before they are copied into the Tree
 	tokBuf     [32]tok
 	groupBuf   [16]tok
 }
@@ -73,8 +74,13 @@ func Parse(line []byte, base source.Pos) (Step, source.ErrorList) {
 	}
 	p.src, p.str, p.base = line, t.src, base
 	errs := p.parse()
-	t.nodes = make([]node, 0, p.size())
-	return Step{t, p.emit(t)}, errs
+	// make followed at once by copy from a variable allocates without
+	// zeroing, and exactly what the line needs.
+	from := p.emitScratch(base)
+	nodes := make([]node, len(from))
+	copy(nodes, from)
+	t.nodes = nodes
+	return Step{t, 0}, errs
 }
 
 // ParseLines parses the step lines of one host text, given by their
@@ -116,42 +122,61 @@ const parallelLines = 1000
 // parseRun parses the lines at spans into steps and errs with one
 // parser, as ParseLines describes.
 func parseRun(text []byte, host string, spans []source.Span, steps []Step, errs []source.ErrorList) {
-	p := new(parser)
-	var t *Tree
-	// room returns a Tree with room for n more nodes: the current one, or
-	// a new one of treeNodes nodes. Trees of that size are zeroed and
-	// filled while they are in the cache, and reuse the memory the
-	// runtime keeps for small objects, where one Tree for the whole run
-	// would be zeroed in full before the first node is written.
-	room := func(n int) *Tree {
-		if t == nil || cap(t.nodes)-len(t.nodes) < n {
-			t = &Tree{src: host, nodes: make([]node, 0, max(n, treeNodes))}
+	p := parsers.Get().(*parser)
+	defer p.release()
+	// The nodes of the lines from line first on are gathered in the
+	// parser's buffer, which stays in the cache, until they would pass
+	// treeNodes; then they are copied at once into a Tree of their exact
+	// size. Allocating with make and copy leaves the memory unzeroed, and
+	// Trees of that size reuse the memory the runtime keeps for small
+	// objects.
+	scratch := Tree{nodes: p.nodes[:0]}
+	defer func() { p.nodes = scratch.nodes }()
+	first := 0
+	flush := func(to, n int) {
+		// make followed at once by copy from a variable allocates
+		// without zeroing.
+		from := scratch.nodes[:n]
+		nodes := make([]node, n)
+		copy(nodes, from)
+		t := &Tree{src: host, nodes: nodes}
+		for k := first; k < to; k++ {
+			steps[k].t = t
 		}
-		return t
+		first = to
 	}
 	for i, sp := range spans {
+		start := int32(len(scratch.nodes))
 		p.errs = nil
 		if sp.Start < 0 || sp.Start > sp.End || int(sp.End) > len(text) {
 			// A caller's mistake, reported rather than panicking.
 			errs[i].Add(sp, "bad-span", fmt.Sprintf("line span %d-%d lies outside the %d-byte text", sp.Start, sp.End, len(text)))
-			t := room(1)
-			steps[i] = Step{t, emitBad(t, sp)}
-			continue
+			emitBad(&scratch, sp)
+		} else {
+			p.src, p.base = text[sp.Start:sp.End], sp.Start
+			p.str = ""
+			if sp.Len() <= MaxLineLength {
+				p.str = host[sp.Start:sp.End]
+			}
+			errs[i] = p.parse()
+			p.emit(&scratch)
 		}
-		p.src, p.base = text[sp.Start:sp.End], sp.Start
-		p.str = ""
-		if sp.Len() <= MaxLineLength {
-			p.str = host[sp.Start:sp.End]
+		if len(scratch.nodes) > treeNodes && start > 0 {
+			// This line's nodes overflow the Tree: it starts the next.
+			flush(i, int(start))
+			scratch.nodes = scratch.nodes[:copy(scratch.nodes, scratch.nodes[start:])]
+			start = 0
 		}
-		errs[i] = p.parse()
-		t := room(p.size())
-		steps[i] = Step{t, p.emit(t)}
+		steps[i].i = start
+	}
+	if len(spans) > first {
+		flush(len(spans), len(scratch.nodes))
 	}
 }
 
-// treeNodes is the number of nodes of a Tree made by ParseLines: 32 KiB
-// of 32-byte nodes (TestNodeSize), the largest of the runtime's small
-// objects, about 80 steps.
+// treeNodes is the most nodes of a Tree made by ParseLines (but for a
+// line of more): 32 KiB of 32-byte nodes (TestNodeSize), the largest of
+// the runtime's small objects, about 80 steps.
 const treeNodes = 1024
 
 // emitBad appends the empty step of a span outside the text, which has
@@ -208,6 +233,15 @@ func (p *parser) errorf(a, b int, code, format string, args ...any) {
 		return
 	}
 	p.errs.Add(p.span(a, b), code, fmt.Sprintf(format, args...))
+}
+
+// addErrs adds the errors a reading left to report. Most readings leave
+// none, and then p.errs is not stored: storing a slice passes the
+// garbage collector's write barrier whenever a collection is running.
+func (p *parser) addErrs(errs source.ErrorList) {
+	if len(errs) > 0 {
+		p.errs = append(p.errs, errs...)
+	}
 }
 
 func (p *parser) skipSpace(i, end int) int {
@@ -378,11 +412,13 @@ func badRune(s string) string {
 	return s[:size]
 }
 
-// segment is the tokens between two separators, with the separator
-// before them (nil for the first).
+// segment is the tokens between two separators, toks[from:to] of the
+// line's tokens, with the separator before them (kind 0 for the first).
+// It holds no pointer, so that filling a list of them passes no write
+// barrier while the collector runs.
 type segment struct {
-	sep  *tok
-	toks []tok
+	sep      tok
+	from, to int
 }
 
 // phase is the part of the line a term belongs to.
@@ -398,36 +434,39 @@ const (
 // step.
 func (p *parser) terms(st *draftStep, toks []tok) {
 	// The words between two separators are contiguous in toks, so each
-	// segment is a sub-slice and costs nothing.
+	// segment is a range of them and costs nothing.
 	var segBuf [16]segment
 	segs := append(segBuf[:0], segment{})
-	from := 0
 	for k := range toks {
 		switch toks[k].kind {
 		case tPlus, tComma, tArrow:
-			segs[len(segs)-1].toks = toks[from:k]
-			segs = append(segs, segment{sep: &toks[k]})
-			from = k + 1
+			segs[len(segs)-1].to = k
+			segs = append(segs, segment{}) // set in place, as in addTok
+			segs[len(segs)-1].sep, segs[len(segs)-1].from = toks[k], k+1
 		}
 	}
-	segs[len(segs)-1].toks = toks[from:]
-	if len(segs) == 1 && len(segs[0].toks) == 0 {
+	segs[len(segs)-1].to = len(toks)
+	if len(segs) == 1 && segs[0].to == 0 {
 		if st.hasMark && !st.hasLabel {
 			p.errorf(int(st.mark.Span.Start-p.base), int(st.mark.Span.End-p.base), "missing-substrate",
 				"status mark with no step after it; write the step after the mark")
 		}
 		return
 	}
+	// A term placed in its part of the step, by its draft's id (no
+	// pointer, as for segments).
 	type placed struct {
 		ph phase
-		t  *draftTerm
+		id int32
 	}
 	var allBuf [16]placed
 	all := allBuf[:0]
 	ph := inReactants
-	for k, seg := range segs {
+	for k := range segs {
+		seg := &segs[k] // not a copy: segments are read for every term
 		var sep Sep
-		if seg.sep != nil {
+		segToks := toks[seg.from:seg.to]
+		if seg.sep.kind != 0 {
 			switch seg.sep.kind {
 			case tPlus:
 				sep = Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Plus}
@@ -441,9 +480,9 @@ func (p *parser) terms(st *draftStep, toks []tok) {
 			case tArrow:
 				var last *draftTerm
 				if len(all) > 0 && all[len(all)-1].ph == inConditions {
-					last = all[len(all)-1].t
+					last = p.termDrafts.at(all[len(all)-1].id)
 				}
-				if p.rangeAcrossArrow(last, seg) {
+				if p.rangeAcrossArrow(last, segToks) {
 					continue
 				}
 				if st.hasArrow {
@@ -453,25 +492,25 @@ func (p *parser) terms(st *draftStep, toks []tok) {
 					st.arrow, st.hasArrow = p.span(seg.sep.start, seg.sep.end), true
 				}
 				ph = inProducts
-				if len(seg.toks) == 0 {
+				if len(segToks) == 0 {
 					if k+1 < len(segs) && segs[k+1].sep.kind != tArrow {
 						p.errorf(seg.sep.start, seg.sep.end, "missing-product",
 							"expected a product after %s, found %s; write the expected product or delete the arrow",
-							quote(p.text(*seg.sep)), quote(p.text(*segs[k+1].sep)))
+							quote(p.text(seg.sep)), quote(p.text(segs[k+1].sep)))
 					}
 					// A bare arrow at the end of a line asks for the
 					// prediction; it is not an error.
 					continue
 				}
-				all = append(all, placed{inProducts, p.term(seg.toks, Sep{})})
+				all = append(all, placed{inProducts, p.term(segToks, Sep{}).id})
 				continue
 			}
 		}
-		if len(seg.toks) == 0 {
+		if len(segToks) == 0 {
 			p.emptySegment(segs, k, ph)
 			continue
 		}
-		all = append(all, placed{ph, p.term(seg.toks, sep)})
+		all = append(all, placed{ph, p.term(segToks, sep).id})
 	}
 	// One backing array for the three lists.
 	var count [3]int
@@ -481,7 +520,7 @@ func (p *parser) terms(st *draftStep, toks []tok) {
 	p.order = append(p.order[:0], make([]int32, len(all))...)
 	next := [3]int{0, count[0], count[0] + count[1]}
 	for _, pt := range all {
-		p.order[next[pt.ph]] = pt.t.id
+		p.order[next[pt.ph]] = pt.id
 		next[pt.ph]++
 	}
 	st.nR, st.nC, st.nP = count[0], count[1], count[2]
@@ -494,7 +533,7 @@ func (p *parser) emptySegment(segs []segment, k int, ph phase) {
 	case k == 0:
 		next := segs[1].sep
 		p.errorf(next.start, next.end, "missing-substrate",
-			"expected the substrate before %s, found the start of the line; write the substrate first", quote(p.text(*next)))
+			"expected the substrate before %s, found the start of the line; write the substrate first", quote(p.text(next)))
 	case k == len(segs)-1:
 		what := "a reactant"
 		switch {
@@ -507,21 +546,21 @@ func (p *parser) emptySegment(segs []segment, k int, ph phase) {
 		}
 		p.errorf(seg.sep.start, seg.sep.end, "missing-term",
 			"expected %s after %s, found the end of the line; write it or delete the %s",
-			what, quote(p.text(*seg.sep)), quote(p.text(*seg.sep)))
+			what, quote(p.text(seg.sep)), quote(p.text(seg.sep)))
 	default:
 		next := segs[k+1].sep
 		p.errorf(seg.sep.start, next.end, "empty-term",
 			"nothing between %s and %s; delete one of them or write the missing term",
-			quote(p.text(*seg.sep)), quote(p.text(*next)))
+			quote(p.text(seg.sep)), quote(p.text(next)))
 	}
 }
 
 // rangeAcrossArrow handles "-78 °C -> rt" among the conditions: an arrow
 // between two temperatures is a temperature range, not the reaction
-// arrow. last is the condition before the arrow, if any. It reports
-// whether it took the segment.
-func (p *parser) rangeAcrossArrow(last *draftTerm, seg segment) bool {
-	if last == nil || len(seg.toks) == 0 {
+// arrow. last is the condition before the arrow, if any, and toks the
+// segment after the arrow. It reports whether it took the segment.
+func (p *parser) rangeAcrossArrow(last *draftTerm, toks []tok) bool {
+	if last == nil || len(toks) == 0 {
 		return false
 	}
 	if last.sub != 0 || last.q1-last.q0 != 1 {
@@ -531,11 +570,11 @@ func (p *parser) rangeAcrossArrow(last *draftTerm, seg segment) bool {
 	if from.Kind != Temperature || from.to != 0 {
 		return false
 	}
-	q, n, errs := p.quantity(seg.toks, 0, false)
-	if q == nil || q.Kind != Temperature || n != len(seg.toks) {
+	q, n, errs := p.quantity(toks, 0, false)
+	if q == nil || q.Kind != Temperature || n != len(toks) {
 		return false
 	}
-	p.errs = append(p.errs, errs...)
+	p.addErrs(errs)
 	from.to = ref(q.id)
 	from.Span.End = q.Span.End
 	last.Span.End = q.Span.End

@@ -15,10 +15,10 @@ var (
 	//go:embed words.tsv
 	wordsTSV string
 
-	units                  = map[string]unit{} // exact spelling
-	foldedUnits            = map[string]unit{} // lower-cased spelling, for rows marked fold
-	quantityWords          = map[string]unit{} // lower-cased word or words joined by one space
-	quantityWordStarts     [256]bool           // first bytes of quantityWords, to skip most lookups
+	units                  wordTable // exact spelling
+	foldedUnits            wordTable // lower-cased spelling, for rows marked fold
+	quantityWords          wordTable // lower-cased word or words joined by one space
+	quantityWordStarts     [256]bool // first bytes of quantityWords, to skip most lookups
 	maxWordsInQuantityWord = 1
 
 	// quantityWordLens and quantityWordPairs hold the lengths and the
@@ -64,9 +64,9 @@ func init() {
 		if u.kind == 0 || len(row) < 5 {
 			panic("notation: bad row in units.tsv: " + strings.Join(row, "\t"))
 		}
-		units[row[0]] = u
+		units.put(row[0], u)
 		if row[3] == "yes" {
-			foldedUnits[strings.ToLower(row[0])] = u
+			foldedUnits.put(strings.ToLower(row[0]), u)
 		}
 	}
 	for _, row := range tsvRows(wordsTSV) {
@@ -75,7 +75,7 @@ func init() {
 			panic("notation: bad row in words.tsv: " + strings.Join(row, "\t"))
 		}
 		for _, w := range strings.Split(row[0], "|") {
-			quantityWords[w] = u
+			quantityWords.put(w, u)
 			quantityWordStarts[w[0]] = true
 			if len(w) < 2 || len(w) >= len(quantityWordLens) {
 				panic("notation: quantity word of unexpected length in words.tsv: " + w)
@@ -103,15 +103,65 @@ func tsvRows(tsv string) [][]string {
 
 // lookupUnit returns the unit spelled s.
 func lookupUnit(s string) (unit, bool) {
-	if u, ok := units[s]; ok {
+	if u, ok := units.get(s); ok {
 		return u, true
 	}
 	var buf [24]byte
 	if len(s) > len(buf) {
 		return unit{}, false
 	}
-	u, ok := foldedUnits[string(lowerASCII(buf[:0], s))]
-	return u, ok
+	return foldedUnits.get(string(lowerASCII(buf[:0], s)))
+}
+
+// wordTable finds a spelling among the few dozen of a table. It is an
+// open-addressing hash table whose hash reads only the length and the
+// first and last bytes, which is enough to tell these spellings apart
+// mostly at the first probe: a lookup is made for nearly every number in
+// a line, and a map's general hash costs several times as much.
+type wordTable struct {
+	slots [256]uint8 // an index in keys plus one, or 0 for none
+	keys  []string
+	vals  []unit
+}
+
+// wordHash is the first slot to probe for the non-empty spelling s.
+func wordHash(s string) uint8 {
+	return uint8(len(s)*37 + int(s[0])*11 + int(s[len(s)-1]))
+}
+
+// put adds s, or replaces its unit if it is there, as a map would.
+func (t *wordTable) put(s string, u unit) {
+	if s == "" || len(t.keys) >= len(t.slots)/2 {
+		panic("notation: empty spelling or too many spellings in a table: " + s)
+	}
+	for h := wordHash(s); ; h++ {
+		k := t.slots[h]
+		if k == 0 {
+			t.keys, t.vals = append(t.keys, s), append(t.vals, u)
+			t.slots[h] = uint8(len(t.keys))
+			return
+		}
+		if t.keys[k-1] == s {
+			t.vals[k-1] = u
+			return
+		}
+	}
+}
+
+// get returns the unit of s.
+func (t *wordTable) get(s string) (unit, bool) {
+	if s == "" {
+		return unit{}, false
+	}
+	for h := wordHash(s); ; h++ {
+		k := t.slots[h]
+		if k == 0 {
+			return unit{}, false
+		}
+		if t.keys[k-1] == s {
+			return t.vals[k-1], true
+		}
+	}
 }
 
 // quantityWordPair reports whether a word of words.tsv starts with the
@@ -127,6 +177,23 @@ func lowerByte(c byte) byte {
 		c += 'a' - 'A'
 	}
 	return c
+}
+
+// foldsTo reports whether s is word, which is in lower case, in any
+// ASCII case. For the words it is given, which hold no 'k' or 's' (the
+// only ASCII letters other characters fold to), it is strings.EqualFold;
+// it is asked of nearly every word of a line, and mostly fails on the
+// length alone.
+func foldsTo(s, word string) bool {
+	if len(s) != len(word) {
+		return false
+	}
+	for i := 0; i < len(s); i++ {
+		if lowerByte(s[i]) != word[i] {
+			return false
+		}
+	}
+	return true
 }
 
 // lowerASCII appends s to b with ASCII letters in lower case; the unit
@@ -173,8 +240,7 @@ func (p *parser) quantityWord(ws []tok) (unit, bool) {
 		}
 		b = lowerASCII(b, p.str[w.start:w.end])
 	}
-	u, ok := quantityWords[string(b)]
-	return u, ok
+	return quantityWords.get(string(b))
 }
 
 // number is a number read from the start of a word, with an optional
@@ -317,6 +383,13 @@ func (p *parser) readRatio(w string) (int32, int32, bool) {
 // isLabelByte reports whether c may appear in a step label: ASCII letters,
 // digits, '_', '-' and the prime "'" ("3a'"), none of which lets a label
 // be taken for the SMILES that may follow it.
-func isLabelByte(c byte) bool {
-	return c == '_' || c == '-' || c == '\'' || isDigitByte(c) || 'a' <= c && c <= 'z' || 'A' <= c && c <= 'Z'
-}
+func isLabelByte(c byte) bool { return labelBytes[c] }
+
+// labelBytes marks the bytes isLabelByte accepts: every label and
+// reference is checked byte by byte.
+var labelBytes = func() (t [256]bool) {
+	for c := range t {
+		t[c] = c == '_' || c == '-' || c == '\'' || '0' <= c && c <= '9' || 'a' <= c && c <= 'z' || 'A' <= c && c <= 'Z'
+	}
+	return t
+}()

@@ -49,7 +49,7 @@ func (p *parser) term(toks []tok, sep Sep) *draftTerm {
 		switch {
 		case q != nil:
 			p.qlist = append(p.qlist, q.id)
-			p.errs = append(p.errs, errs...)
+			p.addErrs(errs)
 			k += n
 		case tk.kind == tGroup:
 			p.group(tk)
@@ -148,7 +148,7 @@ func (p *parser) mayStartQuantity(t tok) bool {
 	// Anything else starts only a word of words.tsv, whose first two
 	// bytes are known, or "at"/"for" before a quantity.
 	w := p.str[t.start:t.end]
-	if strings.EqualFold(w, "at") || strings.EqualFold(w, "for") {
+	if foldsTo(w, "at") || foldsTo(w, "for") {
 		return true
 	}
 	second := byte(' ') // a word of one letter is followed by the joining space
@@ -177,7 +177,7 @@ func (p *parser) quantity(toks []tok, k int, ranges bool) (*draftQuantity, int, 
 	}
 	wordAt := func(i int) string { return p.text(toks[k+i]) }
 	// "at 60 °C", "for 3 h"
-	if w := wordAt(0); (strings.EqualFold(w, "at") || strings.EqualFold(w, "for")) && words > 1 {
+	if w := wordAt(0); (foldsTo(w, "at") || foldsTo(w, "for")) && words > 1 {
 		if q, n, errs := p.quantity(toks, k+1, ranges); q != nil && q.Kind != Bare {
 			q.Span.Start = p.span(toks[k].start, toks[k].end).Start
 			return q, n + 1, errs
@@ -188,7 +188,7 @@ func (p *parser) quantity(toks []tok, k int, ranges bool) (*draftQuantity, int, 
 		return nil, 0, nil
 	}
 	var errs source.ErrorList
-	if ranges && n+1 < words+1 && n < words && strings.EqualFold(wordAt(n), "to") {
+	if ranges && n+1 < words+1 && n < words && foldsTo(wordAt(n), "to") {
 		toTok := toks[k+n]
 		if to, m, e2 := p.quantity(toks, k+n+1, false); to != nil && (to.Kind == q.Kind || q.Kind == Bare || to.Kind == Bare) {
 			if q.Kind == Bare {
@@ -226,7 +226,7 @@ func (p *parser) single(ws []tok, last bool) (*draftQuantity, int) {
 	if r0, r1, ok := p.readRatio(w); ok {
 		q := p.newQuantity()
 		q.Span, q.Kind, q.r0, q.r1 = p.span(ws[0].start, ws[0].end), Ratio, r0, r1
-		if len(ws) > 1 && strings.EqualFold(p.text(ws[1]), "v/v") {
+		if len(ws) > 1 && foldsTo(p.text(ws[1]), "v/v") {
 			q.Span.End = p.span(ws[1].start, ws[1].end).End
 			return q, 2
 		}
@@ -266,7 +266,7 @@ func (p *parser) single(ws []tok, last bool) (*draftQuantity, int) {
 		next := p.text(ws[1])
 		// Two-word units: "mol %", "deg C", "° C", "wt %".
 		if len(ws) > 2 {
-			if next == "mol" || next == "°" || strings.EqualFold(next, "deg") || next == "wt" {
+			if next == "mol" || next == "°" || foldsTo(next, "deg") || next == "wt" {
 				if u, ok := lookupUnit(next + p.text(ws[2])); ok {
 					setUnit(u, ws[1].start, ws[2].end)
 					q.Span.End = p.span(ws[2].start, ws[2].end).End
@@ -279,7 +279,7 @@ func (p *parser) single(ws []tok, last bool) (*draftQuantity, int) {
 			q.Span.End = p.span(ws[1].start, ws[1].end).End
 			return q, 2
 		}
-		if strings.EqualFold(next, "to") {
+		if foldsTo(next, "to") {
 			q.Kind = Bare
 			return q, 1
 		}
@@ -328,7 +328,7 @@ func (p *parser) group(g tok) {
 			k += n
 		}
 		if len(p.qlist) > mark {
-			p.errs = append(p.errs, errs...)
+			p.addErrs(errs)
 		} else {
 			a, b := piece[0].start, piece[len(piece)-1].end
 			p.notes = append(p.notes, p.span(a, b))
@@ -456,7 +456,7 @@ func (p *parser) mixtureJoins(out []joinMark, tk tok) []joinMark {
 	if w == "/" {
 		return append(out, joinMark{tk.start, tk.end})
 	}
-	slashes := strings.IndexByte(w, '/') >= 0 && !strings.ContainsAny(w, "=#@[]()\\") && !strings.EqualFold(w, "o/n") && !strings.EqualFold(w, "v/v")
+	slashes := strings.IndexByte(w, '/') >= 0 && !strings.ContainsAny(w, "=#@[]()\\") && !foldsTo(w, "o/n") && !foldsTo(w, "v/v")
 	for i := 0; i < len(w); {
 		switch {
 		case w[i] == '/' && slashes:
