@@ -105,7 +105,11 @@ func (p *publisher) publish(snap *snapshot, reps []*analyze.Report) {
 			}
 			v := d.version
 			p.buf = p.s.publishEncoded(p.buf, d.uri, &v, p.body)
-			p.shown[d.uri] = shown{version: d.version, body: append(old.body[:0], p.body...)}
+			// The array sent is kept as shown, and the one it replaces
+			// becomes the buffer of the next: no copy of a long page's
+			// diagnostics on each publication.
+			p.shown[d.uri] = shown{version: d.version, body: p.body}
+			p.body = old.body
 		}
 	}
 	for uri := range p.shown {

@@ -180,8 +180,8 @@ func (s *Server) publishDiagnostics(buf []byte, p *publishDiagnosticsParams) []b
 }
 
 // publishEncoded sends the diagnostics of uri at version (nil: none)
-// given as a JSON array, encoding the message into buf, which it returns
-// for reuse.
+// given as a JSON array, encoding the start of the message into buf,
+// which it returns for reuse; the array is written as it is.
 func (s *Server) publishEncoded(buf []byte, uri protocol.DocumentURI, version *int32, diags []byte) []byte {
 	buf = append(buf[:0], `{"jsonrpc":"2.0","method":"textDocument/publishDiagnostics","params":{"uri":`...)
 	buf = appendString(buf, string(uri))
@@ -190,13 +190,8 @@ func (s *Server) publishEncoded(buf []byte, uri protocol.DocumentURI, version *i
 		buf = strconv.AppendInt(buf, int64(*version), 10)
 	}
 	buf = append(buf, `,"diagnostics":`...)
-	buf = append(buf, diags...)
-	buf = append(buf, "}}"...)
-	if _, err := s.stream.writeFrame(buf); err != nil {
+	if _, err := s.stream.writeFrame(buf, diags, []byte("}}")); err != nil {
 		s.log.Info("diagnostics not sent", "uri", uri, "err", err)
-	}
-	if cap(buf) > 16<<20 {
-		return nil
 	}
 	return buf
 }

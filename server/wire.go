@@ -291,28 +291,47 @@ func (s *stream) Write(ctx context.Context, msg jsonrpc2.Message) (int64, error)
 	return s.writeFrame(data)
 }
 
-// writeFrame writes one frame: a small one in a single write, a large one
-// as header and body, to spare copying the body.
-func (s *stream) writeFrame(body []byte) (int64, error) {
+// writeFrame writes one frame whose body is the parts, in order: the
+// header and the small parts in a single write, and each large part
+// (a long page's diagnostics) written as it is, to spare copying it.
+func (s *stream) writeFrame(parts ...[]byte) (int64, error) {
 	s.mu.Lock()
 	defer s.mu.Unlock()
+	length := 0
+	for _, p := range parts {
+		length += len(p)
+	}
 	s.buf.Reset()
 	s.buf.WriteString("Content-Length: ")
-	s.buf.WriteString(strconv.Itoa(len(body)))
+	s.buf.WriteString(strconv.Itoa(length))
 	s.buf.WriteString("\r\n\r\n")
-	if len(body) <= 64<<10 {
-		s.buf.Write(body)
+	var total int64
+	flush := func() error {
+		n, err := s.out.Write(s.buf.Bytes())
+		total += int64(n)
+		s.buf.Reset()
+		return err
 	}
-	n, err := s.out.Write(s.buf.Bytes())
-	if err == nil && len(body) > 64<<10 {
-		var m int
-		m, err = s.out.Write(body)
-		n += m
+	for _, p := range parts {
+		if len(p) <= 64<<10 {
+			s.buf.Write(p)
+			continue
+		}
+		if err := flush(); err != nil {
+			return total, fmt.Errorf("writing message: %w", err)
+		}
+		n, err := s.out.Write(p)
+		total += int64(n)
+		if err != nil {
+			return total, fmt.Errorf("writing message: %w", err)
+		}
 	}
-	if err != nil {
-		return int64(n), fmt.Errorf("writing message: %w", err)
+	if s.buf.Len() > 0 {
+		if err := flush(); err != nil {
+			return total, fmt.Errorf("writing message: %w", err)
+		}
 	}
-	return int64(n), nil
+	return total, nil
 }
 
 // Close closes the underlying connection.
