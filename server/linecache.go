@@ -31,6 +31,7 @@ type lineCache struct {
 	owned map[*analyze.Diagnostic]*encodedLine
 
 	found []analyze.LineFindings // reused by every publication
+	group []analyze.Diagnostic   // joined's scratch
 }
 
 // encodedLine is the JSON of one line's diagnostics.
@@ -165,26 +166,20 @@ func within(group []analyze.Diagnostic, line source.Span) bool {
 	return true
 }
 
-// encode makes the entry of a line's group of diagnostics.
-func (c *lineCache) encode(d *document, group []analyze.Diagnostic, base source.Pos, line int) *encodedLine {
-	ent := &encodedLine{diags: make([]analyze.Diagnostic, len(group)), line: line}
+// encode makes the entry of a line's group of diagnostics: its JSON and,
+// when byValue, the findings relative to the line's start, for comparing
+// with later ones (an entry found by identity needs no copy).
+func (c *lineCache) encode(d *document, group []analyze.Diagnostic, base source.Pos, line int, byValue bool) *encodedLine {
+	ent := &encodedLine{line: line, json: make([]byte, 0, len(group)*diagnosticBytes), cuts: make([]int, 0, 4*len(group))}
 	for x := range group {
-		f := group[x]
 		if x > 0 {
 			ent.json = append(ent.json, ',')
 		}
-		dg := lspDiagnostic(d, &f)
+		dg := lspDiagnostic(d, &group[x])
 		ent.json = appendDiagnosticCuts(ent.json, &dg, &ent.cuts)
-		f.Span = f.Span.Shift(-base)
-		f.Fixes = nil
-		if len(f.Related) > 0 {
-			rel := make([]analyze.Related, len(f.Related))
-			for y, r := range f.Related {
-				rel[y] = analyze.Related{Span: r.Span.Shift(-base), Message: r.Message}
-			}
-			f.Related = rel
-		}
-		ent.diags[x] = f
+	}
+	if byValue {
+		ent.diags = relative(group, base)
 	}
 	return ent
 }
@@ -247,9 +242,15 @@ func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindi
 	n := m.LineCount()
 	// Room for the whole array at once: grown by appends, the 600 kB
 	// array of a long page would be copied a dozen times on opening it.
-	count := len(other)
+	count, owning := len(other), 0
 	for _, l := range lines {
 		count += len(l.Own) + len(l.Extra)
+		if len(l.Own) > 0 {
+			owning++
+		}
+	}
+	if len(c.owned) == 0 {
+		c.owned = make(map[*analyze.Diagnostic]*encodedLine, owning) // a first publication: no growing
 	}
 	a := jsonArray{b: append(slices.Grow(b, count*diagnosticBytes), '[')}
 	k, o, used := 0, 0, 0
@@ -270,7 +271,7 @@ func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindi
 			// on one line.
 			group := l.Extra
 			if len(l.Own) > 0 {
-				group = joined(l)
+				group = c.joined(l)
 			}
 			if within(group, line) {
 				used++
@@ -287,14 +288,14 @@ func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindi
 		ent := c.owned[&l.Own[0]]
 		switch {
 		case ent == nil || len(ent.diags) != len(l.Own) || ent.inLine != inLine || ent.before != string(before) || !sameRel(ent.extra, l.Extra, line.Start):
-			group := joined(l)
+			group := c.joined(l)
 			if !within(group, line) {
 				for x := range group {
 					a.fresh(d, &group[x])
 				}
 				continue
 			}
-			ent = c.encode(d, group, line.Start, k)
+			ent = c.encode(d, group, line.Start, k, false)
 			ent.diags = l.Own // kept for its length; the entry is keyed by its identity
 			ent.inLine, ent.before = inLine, string(before)
 			ent.extra = relative(l.Extra, line.Start)
@@ -318,9 +319,10 @@ func (c *lineCache) appendLines(b []byte, d *document, lines []analyze.LineFindi
 const diagnosticBytes = 400
 
 // joined returns a line's findings in host positions, sorted by start as
-// Report.Full sorts them.
-func joined(l analyze.LineFindings) []analyze.Diagnostic {
-	g := make([]analyze.Diagnostic, 0, len(l.Own)+len(l.Extra))
+// Report.Full sorts them, in the cache's scratch slice: valid until the
+// next call.
+func (c *lineCache) joined(l analyze.LineFindings) []analyze.Diagnostic {
+	g := c.group[:0]
 	for _, f := range l.Own {
 		f.Span = f.Span.Shift(l.Span.Start)
 		if len(f.Related) > 0 {
@@ -334,6 +336,7 @@ func joined(l analyze.LineFindings) []analyze.Diagnostic {
 	}
 	g = append(g, l.Extra...)
 	slices.SortStableFunc(g, func(a, b analyze.Diagnostic) int { return cmp.Compare(a.Span.Start, b.Span.Start) })
+	c.group = g
 	return g
 }
 
@@ -343,7 +346,7 @@ func (c *lineCache) byText(d *document, text []byte, group []analyze.Diagnostic,
 	ent := c.lines[string(text[line.Start:line.End])]
 	switch {
 	case ent == nil || !ent.same(group, line.Start):
-		ent = c.encode(d, group, line.Start, k)
+		ent = c.encode(d, group, line.Start, k, true)
 		c.lines[string(text[line.Start:line.End])] = ent
 	case ent.line != k:
 		ent.move(k)
