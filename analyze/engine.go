@@ -266,6 +266,7 @@ func (e *Engine) prewarm(ctx context.Context, ents [][]*lineEntry) {
 		e.mu.Unlock()
 		return
 	}
+	e.memo.reserve(len(todo))
 	var next atomic.Int64
 	var wg sync.WaitGroup
 	for range min(workers, len(todo)/prewarmMin+1) {

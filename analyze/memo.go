@@ -51,6 +51,23 @@ type readSMILES struct {
 // newMemo returns an empty memo; its tables are made on first use.
 func newMemo() *memo { return &memo{chem: outcome.NewCache()} }
 
+// reserve makes the tables that are not yet made with room for n steps,
+// so that opening a long page does not grow them step by step.
+func (m *memo) reserve(n int) {
+	if m == nil {
+		return
+	}
+	n = min(n, memoMax)
+	m.mu.Lock()
+	defer m.mu.Unlock()
+	if m.outcomes == nil {
+		m.outcomes = make(map[outcomeKey]predicted, n)
+	}
+	if m.cautionsBy == nil {
+		m.cautionsBy = make(map[cautionKey][]caution.Caution, n)
+	}
+}
+
 // put stores v under k in *t, making the table on first use and
 // emptying it first when it is full.
 func put[K comparable, V any](t *map[K]V, k K, v V) {

@@ -43,7 +43,8 @@ func (e *Engine) predict(in *stepInput) *prediction {
 
 // fromOutcome converts the outcome engine's answer.
 func fromOutcome(o *outcome.Outcome, solventIndex map[int]int) *prediction {
-	p := &prediction{notAnalysed: o.NotAnalysed, mechanism: string(o.Mechanism), reacting: o.Site, leaving: o.Leaving, roles: map[int]string{}}
+	p := &prediction{notAnalysed: o.NotAnalysed, mechanism: string(o.Mechanism), reacting: o.Site, leaving: o.Leaving,
+		roles: make(map[int]string, 1+len(o.Leaving))}
 	for _, s := range o.Scores {
 		if s.Possible && s.Fraction >= 0.005 { // shares that round to 0% say nothing
 			p.distribution = append(p.distribution, share{string(s.Pathway), s.Fraction})
@@ -62,9 +63,11 @@ func fromOutcome(o *outcome.Outcome, solventIndex map[int]int) *prediction {
 			p.products = append(p.products, pr)
 		}
 	}
-	for _, r := range o.Reasons {
-		p.reasons = append(p.reasons, r.Text)
-		p.sources = append(p.sources, r.Source)
+	if n := len(o.Reasons); n > 0 {
+		p.reasons, p.sources = make([]string, n), make([]string, n)
+		for i, r := range o.Reasons {
+			p.reasons[i], p.sources[i] = r.Text, r.Source
+		}
 	}
 	for _, c := range o.Stereo {
 		p.stereo = append(p.stereo, stereoChange{atom: c.Atom, before: c.Before, after: c.After, outcome: string(c.Change), letterChanged: c.LetterChanged, why: c.Why})

@@ -3,6 +3,7 @@ package outcome
 import (
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 
 	"walden/analyze/molecule"
@@ -73,7 +74,7 @@ func Predict(st Step) (o Outcome) {
 	}
 
 	c := &scoring{sub: sub, site: &site, md: md, act: act, can: [4]bool{true, true, true, true}, cache: st.Cache,
-		reasons: make([]Reason, 0, 2*len(Rules))} // a rule says a reason or two
+		reasons: make([]Reason, 0, len(Rules))} // most rules say one reason, some none
 	switch {
 	case act.nu != nil:
 		c.nu, c.nuMol = act.nu, act.nuMol
@@ -101,7 +102,11 @@ func Predict(st Step) (o Outcome) {
 		c.rule = &Rules[i]
 		Rules[i].Apply(c)
 	}
-	o.Reasons = append(o.Reasons, c.reasons...)
+	if len(o.Reasons) == 0 {
+		o.Reasons = slices.Clip(c.reasons) // no copy: the rules are done with them
+	} else {
+		o.Reasons = append(o.Reasons, c.reasons...)
+	}
 	distribute(&o, c)
 	findings(&o, st, c, rg)
 	if o.Mechanism == None {
