@@ -190,7 +190,8 @@ func decodeMessage(body []byte) (jsonrpc2.Message, error) {
 	if isNull(id) {
 		id = nil
 	}
-	if len(id) > 0 && !validID(id) {
+	rid, ok := readID(id)
+	if len(id) > 0 && !ok {
 		return nil, &frameError{code: codeInvalidRequest, msg: fmt.Sprintf("request id %s is neither a number nor a string", truncate(string(id), 40))}
 	}
 	if w.JSONRPC != jsonrpc2.Version {
@@ -209,7 +210,7 @@ func decodeMessage(body []byte) (jsonrpc2.Message, error) {
 	case w.Method != nil && id == nil:
 		msg, err = jsonrpc2.NewNotification(*w.Method, params)
 	case w.Method != nil:
-		msg, err = jsonrpc2.NewCall(decodeID(id), *w.Method, params)
+		msg, err = jsonrpc2.NewCall(rid, *w.Method, params)
 	case id == nil:
 		return nil, &frameError{code: codeInvalidRequest, msg: "invalid JSON-RPC message: a response without an id"}
 	default:
@@ -221,7 +222,7 @@ func decodeMessage(body []byte) (jsonrpc2.Message, error) {
 		if w.Error != nil {
 			rerr = w.Error
 		}
-		msg, err = jsonrpc2.NewResponse(decodeID(id), result, rerr)
+		msg, err = jsonrpc2.NewResponse(rid, result, rerr)
 	}
 	if err != nil {
 		return nil, &frameError{code: codeInvalidRequest, id: id, msg: "invalid JSON-RPC message: " + err.Error()}
@@ -232,26 +233,18 @@ func decodeMessage(body []byte) (jsonrpc2.Message, error) {
 // isNull reports whether raw is absent or the JSON null.
 func isNull(raw json.RawMessage) bool { return len(raw) == 0 || string(raw) == "null" }
 
-// decodeID reads an id validID accepted.
-func decodeID(raw json.RawMessage) jsonrpc2.ID {
+// readID reads a request id: a JSON number that fits jsonrpc2's int32
+// ids, or a string. ok is false for anything else.
+func readID(raw json.RawMessage) (id jsonrpc2.ID, ok bool) {
 	var n int32
 	if json.Unmarshal(raw, &n) == nil {
-		return jsonrpc2.NewNumberID(n)
+		return jsonrpc2.NewNumberID(n), true
 	}
 	var s string
-	_ = json.Unmarshal(raw, &s)
-	return jsonrpc2.NewStringID(s)
-}
-
-// validID reports whether raw is a JSON number that fits jsonrpc2's int32
-// ids or a string.
-func validID(raw json.RawMessage) bool {
-	var n int32
-	if json.Unmarshal(raw, &n) == nil {
-		return true
+	if json.Unmarshal(raw, &s) == nil {
+		return jsonrpc2.NewStringID(s), true
 	}
-	var s string
-	return json.Unmarshal(raw, &s) == nil
+	return jsonrpc2.ID{}, false
 }
 
 // reject answers a bad frame. Notifications get no answer in JSON-RPC, but
