@@ -4,27 +4,10 @@ import (
 	"context"
 	"fmt"
 	"strings"
-	"syscall"
 	"testing"
-	"time"
+
+	"walden/internal/benchcpu"
 )
-
-// cpuTime is the process's user+system CPU time, garbage collector
-// included: on a loaded machine it says more than the wall clock.
-func cpuTime() time.Duration {
-	var ru syscall.Rusage
-	if syscall.Getrusage(syscall.RUSAGE_SELF, &ru) != nil {
-		return 0
-	}
-	return time.Duration(ru.Utime.Nano() + ru.Stime.Nano())
-}
-
-// reportCPU adds the "cpu-ms/op" metric for the b.N operations since start.
-func reportCPU(b *testing.B, start time.Duration) {
-	if d := cpuTime() - start; d > 0 {
-		b.ReportMetric(float64(d)/float64(time.Millisecond)/float64(b.N), "cpu-ms/op")
-	}
-}
 
 // benchLines are the kinds of step a notebook holds, cycled with varied
 // numbers so that most lines are distinct (a cold cache sees each once).
@@ -76,7 +59,7 @@ func BenchmarkNotebook10k(b *testing.B) {
 	src := []Source{{Name: "bench.md", Kind: MarkdownPage, Text: benchNotebook(10_000)}}
 	b.ReportAllocs()
 	b.ResetTimer()
-	defer reportCPU(b, cpuTime())
+	defer benchcpu.Measure(b)()
 	for range b.N {
 		NewEngine(Config{}).Analyze(context.Background(), src)
 	}
@@ -90,7 +73,7 @@ func BenchmarkNotebook10kEdit(b *testing.B) {
 	e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: text}})
 	b.ReportAllocs()
 	b.ResetTimer()
-	defer reportCPU(b, cpuTime())
+	defer benchcpu.Measure(b)()
 	for i := range b.N {
 		edited := strings.Replace(string(text), "NaI, acetone, 23 °C", fmt.Sprintf("NaI, acetone, %d °C", 100+i%50), 1)
 		e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: []byte(edited)}})
@@ -111,7 +94,7 @@ func BenchmarkEditOneLine(b *testing.B) {
 	}
 	b.ReportAllocs()
 	b.ResetTimer()
-	defer reportCPU(b, cpuTime())
+	defer benchcpu.Measure(b)()
 	for i := range b.N {
 		e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: pages[i%2]}})
 	}
@@ -130,7 +113,7 @@ func BenchmarkEditOneLineNew(b *testing.B) {
 	}
 	b.ReportAllocs()
 	b.ResetTimer()
-	defer reportCPU(b, cpuTime())
+	defer benchcpu.Measure(b)()
 	for i := range b.N {
 		e.Analyze(context.Background(), []Source{{Kind: MarkdownPage, Text: pages[i%len(pages)]}})
 	}
@@ -142,7 +125,7 @@ func BenchmarkOpen5k(b *testing.B) {
 	src := []Source{{Name: "bench.md", Kind: MarkdownPage, Text: benchNotebook(5_000)}}
 	b.ReportAllocs()
 	b.ResetTimer()
-	defer reportCPU(b, cpuTime())
+	defer benchcpu.Measure(b)()
 	for range b.N {
 		NewEngine(Config{}).Analyze(context.Background(), src)
 	}

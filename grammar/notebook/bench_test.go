@@ -4,12 +4,11 @@ import (
 	"bytes"
 	"encoding/json"
 	"fmt"
-	"syscall"
 	"testing"
-	"time"
 
 	"walden/grammar/notation"
 	"walden/grammar/source"
+	"walden/internal/benchcpu"
 )
 
 // kestrelSteps are the lines the generated notebooks repeat: the Kestrel
@@ -50,31 +49,13 @@ func page(n int) []byte {
 	return b.Bytes()
 }
 
-// cpuTime returns the CPU time the process has used, user and system.
-// The benchmarks report it per operation beside the wall time, because
-// on a shared machine the wall time also counts other processes' turns.
-func cpuTime() time.Duration {
-	var ru syscall.Rusage
-	if syscall.Getrusage(syscall.RUSAGE_SELF, &ru) != nil {
-		return 0
-	}
-	return time.Duration(ru.Utime.Nano() + ru.Stime.Nano())
-}
-
-// reportCPU adds the "cpu-ms/op" metric for the b.N operations since start.
-func reportCPU(b *testing.B, start time.Duration) {
-	if d := cpuTime() - start; d > 0 {
-		b.ReportMetric(float64(d)/float64(time.Millisecond)/float64(b.N), "cpu-ms/op")
-	}
-}
-
 // BenchmarkMarkdown10000: find and parse every step of a 10,000-step page.
 func BenchmarkMarkdown10000(b *testing.B) {
 	text := page(10000)
 	b.SetBytes(int64(len(text)))
 	b.ReportAllocs()
 	b.ResetTimer()
-	defer reportCPU(b, cpuTime())
+	defer benchcpu.Measure(b)()
 	for range b.N {
 		pg := FindMarkdown(text)
 		if len(pg.Lines) != 10000 {
@@ -93,7 +74,7 @@ func BenchmarkMarkdown10000Batch(b *testing.B) {
 	b.SetBytes(int64(len(text)))
 	b.ReportAllocs()
 	b.ResetTimer()
-	defer reportCPU(b, cpuTime())
+	defer benchcpu.Measure(b)()
 	for range b.N {
 		pg := FindMarkdown(text)
 		spans := make([]source.Span, len(pg.Lines))
@@ -113,7 +94,7 @@ func BenchmarkFind10000(b *testing.B) {
 	b.SetBytes(int64(len(text)))
 	b.ReportAllocs()
 	b.ResetTimer()
-	defer reportCPU(b, cpuTime())
+	defer benchcpu.Measure(b)()
 	for range b.N {
 		FindMarkdown(text)
 	}
@@ -134,7 +115,7 @@ func BenchmarkNotebook10000(b *testing.B) {
 	b.SetBytes(int64(len(data)))
 	b.ReportAllocs()
 	b.ResetTimer()
-	defer reportCPU(b, cpuTime())
+	defer benchcpu.Measure(b)()
 	for range b.N {
 		nb, errs := ReadNotebook(data)
 		if len(errs) > 0 {
