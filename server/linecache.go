@@ -322,18 +322,7 @@ const diagnosticBytes = 400
 // Report.Full sorts them, in the cache's scratch slice: valid until the
 // next call.
 func (c *lineCache) joined(l analyze.LineFindings) []analyze.Diagnostic {
-	g := c.group[:0]
-	for _, f := range l.Own {
-		f.Span = f.Span.Shift(l.Span.Start)
-		if len(f.Related) > 0 {
-			rel := make([]analyze.Related, len(f.Related))
-			for y, r := range f.Related {
-				rel[y] = analyze.Related{Span: r.Span.Shift(l.Span.Start), Message: r.Message}
-			}
-			f.Related = rel
-		}
-		g = append(g, f)
-	}
+	g := appendShifted(c.group[:0], l.Own, l.Span.Start)
 	g = append(g, l.Extra...)
 	slices.SortStableFunc(g, func(a, b analyze.Diagnostic) int { return cmp.Compare(a.Span.Start, b.Span.Start) })
 	c.group = g
@@ -360,21 +349,25 @@ func relative(ds []analyze.Diagnostic, base source.Pos) []analyze.Diagnostic {
 	if len(ds) == 0 {
 		return nil
 	}
-	e := &encodedLine{}
-	e.diags = make([]analyze.Diagnostic, len(ds))
-	for x, f := range ds {
-		f.Span = f.Span.Shift(-base)
+	return appendShifted(make([]analyze.Diagnostic, 0, len(ds)), ds, -base)
+}
+
+// appendShifted appends ds moved by the given offset, related spans
+// included, without their fixes, which are not published.
+func appendShifted(dst, ds []analyze.Diagnostic, by source.Pos) []analyze.Diagnostic {
+	for _, f := range ds {
+		f.Span = f.Span.Shift(by)
 		f.Fixes = nil
 		if len(f.Related) > 0 {
 			rel := make([]analyze.Related, len(f.Related))
 			for y, r := range f.Related {
-				rel[y] = analyze.Related{Span: r.Span.Shift(-base), Message: r.Message}
+				rel[y] = analyze.Related{Span: r.Span.Shift(by), Message: r.Message}
 			}
 			f.Related = rel
 		}
-		e.diags[x] = f
+		dst = append(dst, f)
 	}
-	return e.diags
+	return dst
 }
 
 // sameRel reports whether ds, placed at base, are rel.
