@@ -1,13 +1,12 @@
 package analyze
 
 import (
-	"sync"
-
 	"walden/analyze/caution"
 	"walden/analyze/molecule"
 	"walden/analyze/outcome"
 	"walden/analyze/perceive"
 	"walden/analyze/smiles"
+	"walden/internal/bounded"
 )
 
 // memo keeps, for one Engine, the chemistry that depends on only part of
@@ -23,21 +22,17 @@ import (
 // molecules they name, so a pointer in a key cannot be reused by another
 // molecule while the entry lives.
 //
-// Each table is bounded: when it reaches memoMax entries it is emptied,
-// which costs a page larger than that some recomputation and never a
-// wrong answer. A memo is safe for concurrent use (prewarm analyses on
-// every core); two goroutines missing the same key both compute it, and
-// either answer serves.
+// Each table is bounded (internal/bounded): when it is full it is
+// emptied, which costs a page larger than that some recomputation and
+// never a wrong answer. A memo is safe for concurrent use (prewarm
+// analyses on every core); two goroutines missing the same key both
+// compute it, and either answer serves.
 type memo struct {
-	mu         sync.Mutex
-	smiles     map[string]*readSMILES
+	smiles     bounded.Table[string, *readSMILES]
 	chem       *outcome.Cache // perception, products and CIP letters by molecule
-	outcomes   map[outcomeKey]predicted
-	cautionsBy map[cautionKey][]caution.Caution
+	outcomes   bounded.Table[outcomeKey, predicted]
+	cautionsBy bounded.Table[cautionKey, []caution.Caution]
 }
-
-// memoMax bounds each table of a memo.
-const memoMax = 1 << 13
 
 // readSMILES is a SMILES text as read: its molecule or error, and the
 // dictionary entry with the same structure (a solvent or reagent written
@@ -51,58 +46,33 @@ type readSMILES struct {
 // newMemo returns an empty memo; its tables are made on first use.
 func newMemo() *memo { return &memo{chem: outcome.NewCache()} }
 
-// reserve makes the tables that are not yet made with room for n steps,
-// so that opening a long page does not grow them step by step.
+// reserve makes the tables of whole steps with room for n steps, so that
+// opening a long page does not grow them step by step.
 func (m *memo) reserve(n int) {
 	if m == nil {
 		return
 	}
-	n = min(n, memoMax)
-	m.mu.Lock()
-	defer m.mu.Unlock()
-	if m.outcomes == nil {
-		m.outcomes = make(map[outcomeKey]predicted, n)
-	}
-	if m.cautionsBy == nil {
-		m.cautionsBy = make(map[cautionKey][]caution.Caution, n)
-	}
-}
-
-// put stores v under k in *t, making the table on first use and
-// emptying it first when it is full.
-func put[K comparable, V any](t *map[K]V, k K, v V) {
-	if *t == nil {
-		*t = map[K]V{}
-	} else if len(*t) >= memoMax {
-		clear(*t)
-	}
-	(*t)[k] = v
+	m.outcomes.Reserve(n)
+	m.cautionsBy.Reserve(n)
 }
 
 // readSMILES reads text as SMILES, once per text. The molecule is shared:
 // callers must not change it.
 func (m *memo) readSMILES(d *dictionary, text string) *readSMILES {
-	if m != nil {
-		m.mu.Lock()
-		r, ok := m.smiles[text]
-		m.mu.Unlock()
-		if ok {
-			return r
+	read := func() *readSMILES {
+		r := &readSMILES{}
+		r.mol, r.err = smiles.Parse(text)
+		if r.err == nil {
+			r.entry = d.bySMILES(r.mol)
+		} else {
+			r.mol = nil
 		}
+		return r
 	}
-	r := &readSMILES{}
-	r.mol, r.err = smiles.Parse(text)
-	if r.err == nil {
-		r.entry = d.bySMILES(r.mol)
-	} else {
-		r.mol = nil
+	if m == nil {
+		return read()
 	}
-	if m != nil {
-		m.mu.Lock()
-		put(&m.smiles, text, r)
-		m.mu.Unlock()
-	}
-	return r
+	return m.smiles.Do(text, read)
 }
 
 // substrate perceives mol as a substrate, once per molecule. The answer
@@ -160,9 +130,7 @@ func (m *memo) prediction(st *outcome.Step, solventIndex map[int]int) *predictio
 	for i, j := range solventIndex {
 		same = same && i == j
 	}
-	m.mu.Lock()
-	got, ok := m.outcomes[k]
-	m.mu.Unlock()
+	got, ok := m.outcomes.Get(k)
 	if ok && same {
 		p := *got.pred
 		return &p
@@ -176,9 +144,7 @@ func (m *memo) prediction(st *outcome.Step, solventIndex map[int]int) *predictio
 		return p
 	}
 	got.pred = p
-	m.mu.Lock()
-	put(&m.outcomes, k, got)
-	m.mu.Unlock()
+	m.outcomes.Put(k, got)
 	c := *p
 	return &c
 }

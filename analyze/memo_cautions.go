@@ -46,17 +46,7 @@ func (m *memo) cautions(in *stepInput) []caution.Caution {
 	for i, s := range in.solvents {
 		k.parties[1+len(in.reagents)+i] = party(s)
 	}
-	m.mu.Lock()
-	cs, ok := m.cautionsBy[k]
-	m.mu.Unlock()
-	if ok {
-		return cs
-	}
-	cs = cautionsFor(in)
-	m.mu.Lock()
-	put(&m.cautionsBy, k, cs)
-	m.mu.Unlock()
-	return cs
+	return m.cautionsBy.Do(k, func() []caution.Caution { return cautionsFor(in) })
 }
 
 // refers reports a step naming an "@label": its cautions name the label,

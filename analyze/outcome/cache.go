@@ -1,11 +1,10 @@
 package outcome
 
 import (
-	"sync"
-
 	"walden/analyze/molecule"
 	"walden/analyze/perceive"
 	"walden/analyze/smiles"
+	"walden/internal/bounded"
 )
 
 // Cache keeps the parts of a prediction that do not depend on the
@@ -19,47 +18,21 @@ import (
 // afterwards (Predict itself only reads them, and the products it hands
 // out through a Cache are shared and must not be changed either). Keys
 // hold the molecules they name, so an address is never reused while an
-// entry lives. Each table is emptied when it reaches cacheMax entries.
-// A Cache is safe for concurrent use; the zero value is an empty Cache.
-// A nil *Cache caches nothing.
+// entry lives. Each table is bounded (internal/bounded). A Cache is safe
+// for concurrent use; the zero value is an empty Cache. A nil *Cache caches
+// nothing.
 type Cache struct {
-	mu       sync.Mutex
-	subs     map[*molecule.Molecule]*perceive.Substrate
-	ionised  map[*molecule.Molecule]*molecule.Molecule
-	solvNu   map[string]solventNu
-	reagents map[reagentsKey]perceive.Reagents
-	products map[productKey][]Product
-	labels   map[labelKey]string
+	subs     bounded.Table[*molecule.Molecule, *perceive.Substrate]
+	ionised  bounded.Table[*molecule.Molecule, *molecule.Molecule]
+	solvNu   bounded.Table[string, solventNu]
+	reagents bounded.Table[reagentsKey, perceive.Reagents]
+	products bounded.Table[productKey, []Product]
+	labels   bounded.Table[labelKey, string]
 }
-
-// cacheMax bounds each table of a Cache.
-const cacheMax = 1 << 13
 
 // NewCache returns an empty Cache. Its tables are made on first use: a
 // caller that predicts one step should not pay for them.
 func NewCache() *Cache { return &Cache{} }
-
-// cached returns (*t)[k], computing it with build and storing it on a
-// miss (outside the lock: two goroutines may both compute it, either
-// answer serves). The table is made on first use.
-func cached[K comparable, V any](c *Cache, t *map[K]V, k K, build func() V) V {
-	c.mu.Lock()
-	v, ok := (*t)[k]
-	c.mu.Unlock()
-	if ok {
-		return v
-	}
-	v = build()
-	c.mu.Lock()
-	if *t == nil {
-		*t = map[K]V{}
-	} else if len(*t) >= cacheMax {
-		clear(*t)
-	}
-	(*t)[k] = v
-	c.mu.Unlock()
-	return v
-}
 
 // Substrate returns perceive.PerceiveSubstrate(m), once per molecule. The
 // answer is shared: callers must not change it.
@@ -67,7 +40,7 @@ func (c *Cache) Substrate(m *molecule.Molecule) *perceive.Substrate {
 	if c == nil {
 		return perceive.PerceiveSubstrate(m)
 	}
-	return cached(c, &c.subs, m, func() *perceive.Substrate { return perceive.PerceiveSubstrate(m) })
+	return c.subs.Do(m, func() *perceive.Substrate { return perceive.PerceiveSubstrate(m) })
 }
 
 // ionise returns perceive.Ionise(m), once per molecule.
@@ -75,7 +48,7 @@ func (c *Cache) ionise(m *molecule.Molecule) *molecule.Molecule {
 	if c == nil {
 		return perceive.Ionise(m)
 	}
-	return cached(c, &c.ionised, m, func() *molecule.Molecule { return perceive.Ionise(m) })
+	return c.ionised.Do(m, func() *molecule.Molecule { return perceive.Ionise(m) })
 }
 
 // cachedReagents is the most reagents a step may have for their
@@ -97,7 +70,7 @@ func (c *Cache) perceiveReagents(rs []Reactant) perceive.Reagents {
 	}
 	k := reagentsKey{n: len(rs)}
 	copy(k.rs[:], rs)
-	return cached(c, &c.reagents, k, func() perceive.Reagents { return perceive.PerceiveReagents(rs) })
+	return c.reagents.Do(k, func() perceive.Reagents { return perceive.PerceiveReagents(rs) })
 }
 
 // solventNu is the nucleophile of a solvent, read from its SMILES.
@@ -113,7 +86,7 @@ func (c *Cache) solventNucleophile(smi string) (*perceive.Nucleophile, *molecule
 	if c == nil {
 		return nil, nil
 	}
-	s := cached(c, &c.solvNu, smi, func() solventNu {
+	s := c.solvNu.Do(smi, func() solventNu {
 		m, err := smiles.Parse(smi)
 		if err != nil {
 			return solventNu{}
@@ -170,7 +143,7 @@ func (c *Cache) pathwayProducts(sub *molecule.Molecule, sc *scoring, p Mechanism
 	if c == nil {
 		return buildProducts(sub, sc, p)
 	}
-	return cached(c, &c.products, k, func() []Product { return buildProducts(sub, sc, p) })
+	return c.products.Do(k, func() []Product { return buildProducts(sub, sc, p) })
 }
 
 // labelKey names one atom of one molecule.
@@ -184,5 +157,5 @@ func (c *Cache) label(m *molecule.Molecule, a int) string {
 	if c == nil {
 		return label(m, a)
 	}
-	return cached(c, &c.labels, labelKey{m, a}, func() string { return label(m, a) })
+	return c.labels.Do(labelKey{m, a}, func() string { return label(m, a) })
 }
