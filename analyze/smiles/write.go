@@ -123,10 +123,13 @@ func (w *writer) init(m *molecule.Molecule, aromatic bool) {
 
 // aromaticReadable checks that every lower-case atom would read back
 // with the same hydrogens and the same need for a double bond; if not,
-// the molecule is written in Kekulé form.
+// the molecule is written in Kekulé form. An atom with a configuration is
+// written in brackets, where the reader judges its need for a double bond
+// by its charge alone, so the bare form's check does not speak for it.
 func (w *writer) aromaticReadable() bool {
 	for i := range w.m.Atoms {
-		if w.arom[i] && !w.bareOK(i, true) && !w.bracketAromaticOK(i) {
+		bare := w.stereoOf[i] < 0 && w.bareOK(i, true)
+		if w.arom[i] && !bare && !w.bracketAromaticOK(i) {
 			return false
 		}
 	}
