@@ -32,6 +32,7 @@ var handSet = []string{
 	"F/C=C/F",
 	"F/C=C\\F",
 	"C/1=C/CCCCCC1",
+	"C/C=C/1C(/C=C1)=C2\\CC2", // marks on a cyclobutene's ring double bond say nothing (found by FuzzRoundTrip)
 	"C1CCC/C=C/CC1",
 	"CC=[C@]=CC",
 	"CC=[C@@]=CC",

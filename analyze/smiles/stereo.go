@@ -281,6 +281,21 @@ func (p *parser) doubleBonds() {
 		if count%2 == 0 {
 			continue
 		}
+		if count == 1 && inSmallRing(m, bi) {
+			// In a ring of fewer than eight atoms a double bond can only
+			// be cis: marks around it say nothing of it (common
+			// practice; RDKit ignores them too), so they neither
+			// configure it nor conflict, and keeping them would let two
+			// spellings of one molecule differ.
+			for _, end := range ends {
+				for _, e := range m.Edges(end) {
+					if e.Bond != bi && p.notes[e.Bond].dir != 0 {
+						used[e.Bond] = true
+					}
+				}
+			}
+			continue
+		}
 		var refs [2]int
 		var sides [2]int
 		clash := [2]int{-1, -1}
@@ -368,6 +383,39 @@ func hasLonePair(a molecule.Atom) bool {
 		return true
 	case molecule.C, molecule.Si, 32:
 		return a.Charge < 0
+	}
+	return false
+}
+
+// smallRing is the size below which a ring's double bonds have no
+// configuration of their own.
+const smallRing = 8
+
+// inSmallRing reports whether bond bi lies in a ring of fewer than
+// smallRing atoms: whether its ends are joined, without it, by a path of
+// at most smallRing-2 bonds.
+func inSmallRing(m *molecule.Molecule, bi int) bool {
+	b := m.Bonds[bi]
+	dist := map[int]int{b.A: 0}
+	queue := []int{b.A}
+	for len(queue) > 0 {
+		a := queue[0]
+		queue = queue[1:]
+		if dist[a] >= smallRing-2 {
+			continue
+		}
+		for _, e := range m.Edges(a) {
+			if e.Bond == bi {
+				continue
+			}
+			if e.Atom == b.B {
+				return true
+			}
+			if _, seen := dist[e.Atom]; !seen {
+				dist[e.Atom] = dist[a] + 1
+				queue = append(queue, e.Atom)
+			}
+		}
 	}
 	return false
 }
