@@ -7,6 +7,7 @@ import (
 	"testing"
 
 	"walden/internal/benchcpu"
+	"walden/internal/benchpage"
 )
 
 // benchLines are the kinds of step a notebook holds, cycled with varied
@@ -123,6 +124,20 @@ func BenchmarkEditOneLineNew(b *testing.B) {
 // opening a document: the time to the first diagnostics.
 func BenchmarkOpen5k(b *testing.B) {
 	src := []Source{{Name: "bench.md", Kind: MarkdownPage, Text: benchNotebook(5_000)}}
+	b.ReportAllocs()
+	b.ResetTimer()
+	defer benchcpu.Measure(b)()
+	for range b.N {
+		NewEngine(Config{}).Analyze(context.Background(), src)
+	}
+}
+
+// BenchmarkOpenTypical analyses the language server benchmark's typical
+// 5,000-line page (benchpage.Typical) with an empty cache: the chemistry
+// behind the first diagnostics after opening it.
+func BenchmarkOpenTypical(b *testing.B) {
+	text, _ := benchpage.Typical(5_000)
+	src := []Source{{Name: "typical.md", Kind: MarkdownPage, Text: []byte(text)}}
 	b.ReportAllocs()
 	b.ResetTimer()
 	defer benchcpu.Measure(b)()

@@ -15,6 +15,8 @@ import (
 	"time"
 
 	"go.lsp.dev/protocol"
+
+	"walden/internal/benchpage"
 )
 
 // The speed targets of the language server, measured as figures (never as
@@ -95,42 +97,6 @@ func serveProcess(b *testing.B) (*testClient, *exec.Cmd) {
 	return c, cmd
 }
 
-// benchPage returns a Markdown page of about n lines: prose paragraphs and
-// reaction blocks with labelled steps, references to them, conditions and
-// expected products, as a long-running notebook page would hold. The steps
-// are invented, for load only.
-func benchPage(n int) (text string, stepLines []int) {
-	substrates := []string{"CCBr", "CC(C)Br", "C[C@@H](Br)CC", "CC(C)(C)Cl", "BrCc1ccccc1", "C[C@H](OS(C)(=O)=O)CCc1ccccc1", "ClCC=C", "CCCCI"}
-	reagents := []string{"NaN3", "NaCN", "NaI", "KOtBu", "NaOEt", "KSAc", "NaOMe", "DBU"}
-	solvents := []string{"DMF", "acetone", "EtOH", "DMSO", "THF", "MeOH", "MeCN", "toluene"}
-	var b strings.Builder
-	line := 0
-	add := func(s string) {
-		b.WriteString(s)
-		b.WriteByte('\n')
-		line++
-	}
-	add("# Route scouting, notebook 7")
-	for k := 0; line < n; k++ {
-		add("")
-		add(fmt.Sprintf("## Entry %d", k+1))
-		add("The substrate was dried over sieves; the reagent was weighed under nitrogen and added in portions.")
-		add("")
-		add("```reaction")
-		for j := 0; j < 8 && line < n-1; j++ {
-			i := k*8 + j
-			step := fmt.Sprintf("s%d: %s + %s (1.5 eq), %s, %d °C", i, substrates[i%len(substrates)], reagents[(i/3)%len(reagents)], solvents[(i/7)%len(solvents)], 20+i%60)
-			if j > 0 && j%3 == 0 {
-				step = fmt.Sprintf("s%d: @s%d + %s, %s, rt", i, i-1, reagents[(i/5)%len(reagents)], solvents[(i/2)%len(solvents)])
-			}
-			stepLines = append(stepLines, line)
-			add(step)
-		}
-		add("```")
-	}
-	return b.String(), stepLines
-}
-
 // percentiles returns p50 and p99 of d in milliseconds.
 func percentiles(d []time.Duration) (p50, p99 float64) {
 	if len(d) == 0 {
@@ -170,116 +136,61 @@ func memory(b *testing.B, pid int) (rss, peak float64) {
 	return rss, peak
 }
 
-// cpuTime reads the process's user and system CPU time so far, which,
-// unlike wall-clock latency, does not grow when other work shares the
-// machine.
-func cpuTime(pid int) time.Duration {
+// usage is what a process has used so far: its user and system CPU time,
+// which, unlike wall-clock latency, does not grow when other work shares
+// the machine, and its minor page faults, each a first touch of fresh
+// memory (on this machine's virtual machines, 5 to 13 µs apiece).
+type usage struct {
+	cpu    time.Duration
+	faults int64
+}
+
+func (u usage) sub(v usage) usage { return usage{u.cpu - v.cpu, u.faults - v.faults} }
+func (u usage) add(v usage) usage { return usage{u.cpu + v.cpu, u.faults + v.faults} }
+
+// usageOf reads /proc/PID/stat.
+func usageOf(pid int) usage {
 	data, err := os.ReadFile(fmt.Sprintf("/proc/%d/stat", pid))
 	if err != nil {
-		return 0
+		return usage{}
 	}
 	s := string(data)
 	f := strings.Fields(s[strings.LastIndexByte(s, ')')+2:])
 	if len(f) < 13 {
-		return 0
+		return usage{}
 	}
+	minflt, _ := strconv.ParseInt(f[7], 10, 64)
 	ut, _ := strconv.ParseInt(f[11], 10, 64)
 	st, _ := strconv.ParseInt(f[12], 10, 64)
-	return time.Duration(ut+st) * time.Second / 100 // USER_HZ is 100 on Linux
+	return usage{cpu: time.Duration(ut+st) * time.Second / 100, faults: minflt} // USER_HZ is 100 on Linux
 }
 
-func report(b *testing.B, what string, lat []time.Duration, cmd *exec.Cmd, cpu0 time.Duration) {
+// report prints the figures of n operations that used used of the server.
+func report(b *testing.B, what string, lat []time.Duration, cmd *exec.Cmd, used usage) {
 	p50, p99 := percentiles(lat)
 	rss, peak := memory(b, cmd.Process.Pid)
-	cpu := float64((cpuTime(cmd.Process.Pid) - cpu0).Microseconds()) / 1000 / float64(max(1, len(lat)))
+	n := float64(max(1, len(lat)))
+	cpu := float64(used.cpu.Microseconds()) / 1000 / n
+	faults := float64(used.faults) / n
 	b.ReportMetric(cpu, "server-cpu-ms/op")
+	b.ReportMetric(faults, "faults/op")
 	b.ReportMetric(p50, "p50-ms")
 	b.ReportMetric(p99, "p99-ms")
 	b.ReportMetric(rss, "RSS-MB")
 	b.ReportMetric(peak, "peakRSS-MB")
 	b.ReportMetric(0, "ns/op")
-	b.Logf("%s: n=%d p50 %.3f ms, p99 %.3f ms; server CPU %.3f ms per operation; server RSS %.1f MB (peak %.1f MB)", what, len(lat), p50, p99, cpu, rss, peak)
+	b.Logf("%s: n=%d p50 %.3f ms, p99 %.3f ms; server CPU %.3f ms and %.0f page faults per operation; server RSS %.1f MB (peak %.1f MB)", what, len(lat), p50, p99, cpu, faults, rss, peak)
 }
 
 const benchLines = 5000
 
-// typicalPage returns a Markdown page of about n lines as a working
-// notebook holds them: headings, prose, and reaction blocks in which
-// about 40% of the page's lines are steps and about 30% of the steps have
-// findings. The steps come from a few templates whose substrates vary
-// (chain length, end group) with the temperature, so that nearly every
-// step text is distinct, as on a real page. Invented, for load only.
-func typicalPage(n int) (text string, stepLines []int) {
-	// %s is the substrate's chain, %d the temperature.
-	clean := []string{
-		"%sCBr + NaN3 (1.5 eq), DMF, %d °C",
-		"%sCBr + NaI, acetone, %d °C",
-		"%sCO + TsCl (1.2 eq) + pyridine, DCM, 0 °C to rt, %d h",
-		"%sCBr + KSAc, DMF, %d °C",
-		"%sCI + NaN3, MeCN, %d °C",
-		"C[C@H](Br)C%s + NaN3, DMF, %d °C",
-		"%sCCl + NaI (2 eq), acetone, %d °C",
-	}
-	flagged := []string{
-		"%sCBr + NaN3, EtOH, %d °C",           // protic solvent slows SN2
-		"CC(C)(Br)C%s + KOtBu, THF, %d °C",    // the bulky base eliminates
-		"%sCO + NaN3, DMF, %d °C",             // OH does not leave
-		"CC(Br)C%s + NaOEt, EtOH, %d °C",      // elimination, undefined configuration
-		"%sCBr + NaCN, DMSO, %d °C",           // ambident nucleophile (a note)
-		"BrCc1ccc(C%s)cc1 + NaN3, DMF, %d °C", // benzylic halide caution
-	}
-	tails := []string{"C", "CC", "CCC", "CCCC", "CC(C)C", "CCOC", "CCc1ccccc1", "CCCCC", "CCC(C)C", "CCCOC"}
-	prose := []string{
-		"The flask was flame-dried and cooled under nitrogen before the substrate was added.",
-		"TLC (hexane/ethyl acetate 4:1) showed the starting material gone after the stated time.",
-		"Work-up: diluted with water, extracted three times with ether, dried over MgSO4 and concentrated.",
-		"Yield and NMR to follow; the crude material was carried on without purification.",
-	}
-	var b strings.Builder
-	line := 0
-	add := func(s string) {
-		b.WriteString(s)
-		b.WriteByte('\n')
-		line++
-	}
-	add("# Substitution series, notebook 12")
-	i := 0
-	for k := 0; line < n; k++ {
-		add("")
-		add(fmt.Sprintf("## Entry %d", k+1))
-		for p := range 4 {
-			add(prose[(k+p)%len(prose)])
-		}
-		add("")
-		add("```reaction")
-		for j := 0; j < 8 && line < n-1; j++ {
-			tail := tails[(i/7)%len(tails)] + strings.Repeat("C", (i/70)%6)
-			temp := 20 + (i*7)%61
-			var step string
-			if i%10 < 3 {
-				step = fmt.Sprintf(flagged[(i/10)%len(flagged)], tail, temp)
-			} else {
-				step = fmt.Sprintf(clean[i%len(clean)], tail, temp)
-			}
-			if j == 0 {
-				step = fmt.Sprintf("t%d: %s", i, step)
-			}
-			stepLines = append(stepLines, line)
-			add(step)
-			i++
-		}
-		add("```")
-	}
-	return b.String(), stepLines
-}
-
 // BenchmarkServe measures two pages: "worst", where every step has
-// findings (benchPage), and "typical" (typicalPage).
+// findings (benchpage.Worst), and "typical" (benchpage.Typical).
 func BenchmarkServe(b *testing.B) {
 	for _, page := range []struct {
 		name string
 		make func(int) (string, []int)
-	}{{"worst", benchPage}, {"typical", typicalPage}} {
+	}{{"worst", benchpage.Worst}, {"typical", benchpage.Typical}} {
 		text, steps := page.make(benchLines)
 		b.Run(page.name, func(b *testing.B) { benchServe(b, text, steps) })
 	}
@@ -293,20 +204,20 @@ func benchServe(b *testing.B, text string, steps []int) {
 	// when an editor starts; at most 10 rounds, since each starts a process.
 	b.Run("open", func(b *testing.B) {
 		var lat []time.Duration
-		var cpu time.Duration
+		var used usage
 		var last *exec.Cmd
 		for i := 0; i < min(b.N, 10); i++ {
 			c, cmd := serveProcess(b)
 			uri := protocol.DocumentURI(fmt.Sprintf("file:///lab/open%d.md", i))
-			cpu0 := cpuTime(cmd.Process.Pid)
+			u0 := usageOf(cmd.Process.Pid)
 			t0 := time.Now()
 			c.open(uri, "markdown", 1, text)
 			c.diagnosticsFor(uri, 1)
 			lat = append(lat, time.Since(t0))
-			cpu += cpuTime(cmd.Process.Pid) - cpu0
+			used = used.add(usageOf(cmd.Process.Pid).sub(u0))
 			last = cmd
 		}
-		report(b, "open → first diagnostics (cold)", lat, last, cpuTime(last.Process.Pid)-cpu)
+		report(b, "open → first diagnostics (cold)", lat, last, used)
 	})
 	// edit: type one character into a step line, then delete it again on
 	// the next round: each edit changes one step, and no line number.
@@ -323,7 +234,7 @@ func benchServe(b *testing.B, text string, steps []int) {
 			c.open(uri, "markdown", 1, text)
 			c.diagnosticsFor(uri, 1)
 			var lat []time.Duration
-			cpu0 := cpuTime(cmd.Process.Pid)
+			u0 := usageOf(cmd.Process.Pid)
 			for i := 0; i < b.N; i++ {
 				line := uint32(steps[(i/2*37)%len(steps)])
 				var ch contentChange
@@ -344,7 +255,7 @@ func benchServe(b *testing.B, text string, steps []int) {
 				c.diagnosticsFor(uri, v)
 				lat = append(lat, time.Since(t0))
 			}
-			report(b, name+" → published diagnostics", lat, cmd, cpu0)
+			report(b, name+" → published diagnostics", lat, cmd, usageOf(cmd.Process.Pid).sub(u0))
 		})
 	}
 	b.Run("hover", func(b *testing.B) {
@@ -353,7 +264,7 @@ func benchServe(b *testing.B, text string, steps []int) {
 		c.open(uri, "markdown", 1, text)
 		c.diagnosticsFor(uri, 1)
 		var lat []time.Duration
-		cpu0 := cpuTime(cmd.Process.Pid)
+		u0 := usageOf(cmd.Process.Pid)
 		for i := 0; i < b.N; i++ {
 			line := uint32(steps[(i*53)%len(steps)])
 			var h *protocol.Hover
@@ -362,6 +273,6 @@ func benchServe(b *testing.B, text string, steps []int) {
 				TextDocument: protocol.TextDocumentIdentifier{URI: uri}, Position: protocol.Position{Line: line, Character: uint32(5 + i%12)}}}, &h)
 			lat = append(lat, time.Since(t0))
 		}
-		report(b, "hover", lat, cmd, cpu0)
+		report(b, "hover", lat, cmd, usageOf(cmd.Process.Pid).sub(u0))
 	})
 }
