@@ -16,8 +16,13 @@ import (
 	"unicode/utf8"
 
 	"walden/analyze"
+	"walden/internal/hugeheap"
 	"walden/grammar/source"
 )
+
+// checkHugeHeap is how much of `walden check`'s heap growth is advised
+// for huge pages: what 100,000 steps need.
+const checkHugeHeap = 256 << 20
 
 func init() {
 	commands["check"] = command{"check notebook files and folders", runCheck}
@@ -92,6 +97,12 @@ func runCheck(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 	if *format != "text" && *format != "json" && *format != "sarif" {
 		fmt.Fprintf(stderr, "walden check: --format %q: expected text, json or sarif\n", *format)
 		return exitUsage
+	}
+	if stdout == os.Stdout {
+		// A folder of long pages grows the heap by hundreds of megabytes;
+		// see package hugeheap. Only a real process: a test's heap is
+		// long grown.
+		hugeheap.Prepare(checkHugeHeap)
 	}
 	if fl.NArg() == 0 {
 		fl.Usage()

@@ -12,6 +12,7 @@ import (
 	"runtime/pprof"
 	"syscall"
 
+	"walden/internal/hugeheap"
 	"walden/server"
 )
 
@@ -67,7 +68,19 @@ func runServe(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		// overrides it.
 		debug.SetMemoryLimit(serveMemoryLimit)
 	}
+	if stdout == os.Stdout && os.Getenv("GOGC") == "" {
+		// Every edit re-reads the whole page, some hundreds of kilobytes
+		// of short-lived memory; the collector's work per edit is in
+		// inverse proportion to this setting, and the limit above keeps
+		// the memory it costs within the target. GOGC overrides it.
+		debug.SetGCPercent(serveGCPercent)
+	}
 	if stdout == os.Stdout {
+		// Opening a long page grows the heap by tens of megabytes at
+		// once; see package hugeheap for why that growth should come in
+		// huge pages. Only a real process: a test's heap is long grown.
+		advised, err := hugeheap.Prepare(serveHugeHeap)
+		log.Debug("heap prepared for huge pages", "bytes", advised, "err", err)
 		os.Stdout = os.Stderr
 		defer func() { os.Stdout = stdout.(*os.File) }()
 	}
@@ -97,6 +110,15 @@ func runServe(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 
 // serveMemoryLimit is the soft memory limit of `walden serve`, in bytes.
 const serveMemoryLimit = 88 << 20
+
+// serveGCPercent is the collector's setting in `walden serve` (Go's
+// default is 100): the heap may grow to this many percent beyond what is
+// live before a collection.
+const serveGCPercent = 200
+
+// serveHugeHeap is how much of the server's heap growth is advised for
+// huge pages: what opening a 5,000-line page and editing it needs.
+const serveHugeHeap = 64 << 20
 
 // stdio joins the process's standard input and output into the one
 // stream the server speaks on.

@@ -16,7 +16,7 @@ func (r *Report) Complete(pos source.Pos) []Completion {
 	if ps == nil {
 		return nil
 	}
-	rel := pos - ps.base
+	rel := pos - ps.span.Start
 	// The word being typed: back from the cursor to a separator.
 	start := int(rel)
 	if start > len(ps.text) {
@@ -26,7 +26,7 @@ func (r *Report) Complete(pos source.Pos) []Completion {
 		start--
 	}
 	word := ps.text[start:min(int(rel), len(ps.text))]
-	span := source.Span{Start: ps.base + source.Pos(start), End: pos}
+	span := source.Span{Start: ps.span.Start + source.Pos(start), End: pos}
 	if strings.HasPrefix(word, "@") {
 		return r.completeLabels(ps, word[1:], span)
 	}

@@ -191,20 +191,20 @@ func (e *Engine) analyze(ctx context.Context, srcs []Source, lazy bool) ([]*Repo
 				}
 			}
 			res := e.resultLocked(ent, ins)
-			ps := placedStep{base: l.start, span: source.Span{Start: l.start, End: l.end}, res: res, text: ent.text, nLabels: len(order)}
+			ps := placedStep{span: l.Span, res: res, text: ent.text, nLabels: len(order)}
 			rep.steps = append(rep.steps, ps)
 			from := len(rep.Diagnostics)
 			res.place(rep, ps, &a, e.disabled)
 			if len(res.refs) > 0 {
-				rep.Diagnostics = append(rep.Diagnostics, e.labelDiags(res, l.start, defined, later)...)
+				rep.Diagnostics = append(rep.Diagnostics, e.labelDiags(res, l.Span.Start, defined, later)...)
 			}
 			if res.label != "" {
 				if prev, dup := defined[res.label]; dup {
 					rep.Diagnostics = append(rep.Diagnostics, Diagnostic{Code: CodeLabelDuplicate, Severity: Error,
 						Message: fmt.Sprintf("label '%s' is already defined%s; later steps use the first one", res.label, where(prev, i, srcs)),
-						Span:    res.labelSpan.Shift(l.start)})
+						Span:    res.labelSpan.Shift(l.Span.Start)})
 				} else {
-					defs = append(defs, labelDef{name: res.label, src: i, span: res.labelSpan.Shift(l.start), handOn: res.handOn})
+					defs = append(defs, labelDef{name: res.label, src: i, span: res.labelSpan.Shift(l.Span.Start), handOn: res.handOn})
 					d := &defs[len(defs)-1]
 					defined[res.label] = d
 					order = append(order, d)
@@ -315,7 +315,7 @@ func (e *Engine) entries(srcs []Source, found [][]foundLine, ents [][]*lineEntry
 	for i, s := range srcs {
 		for n, l := range found[i] {
 			// Indexing by string(bytes) does not copy the bytes.
-			if ent, ok := e.lines[string(s.Text[l.start:l.end])]; ok {
+			if ent, ok := e.lines[string(s.Text[l.Span.Start:l.Span.End])]; ok {
 				ent.used = gen
 				ents[i][n] = ent
 			} else {
@@ -331,7 +331,7 @@ func (e *Engine) entries(srcs []Source, found [][]foundLine, ents [][]*lineEntry
 	texts := make([][]byte, len(misses))
 	for k, m := range misses {
 		l := found[m.src][m.line]
-		texts[k] = srcs[m.src].Text[l.start:l.end]
+		texts[k] = srcs[m.src].Text[l.Span.Start:l.Span.End]
 	}
 	fresh := parseNew(texts, gen)
 	e.mu.Lock()

@@ -2,15 +2,12 @@ package analyze
 
 import (
 	"walden/grammar/notebook"
-	"walden/grammar/source"
 )
 
-// foundLine is one step line of a source: where it lies in the host. Its
-// text is the host's bytes there; the Engine copies them only for a line
-// it has not seen before.
-type foundLine struct {
-	start, end source.Pos
-}
+// foundLine is one step line of a source: where it lies in the host
+// (Span). Its text is the host's bytes there; the Engine copies them only
+// for a line it has not seen before.
+type foundLine = notebook.Line
 
 // findLines finds the step lines of a source, with the finder's errors
 // (unterminated fences, binary text) as diagnostics.
@@ -20,10 +17,6 @@ func findLines(s Source) ([]foundLine, []Diagnostic) {
 		f = notebook.Plan
 	}
 	pg := notebook.Find(f, s.Text)
-	lines := make([]foundLine, 0, len(pg.Lines))
-	for _, l := range pg.Lines {
-		lines = append(lines, foundLine{start: l.Span.Start, end: l.Span.End})
-	}
 	var diags []Diagnostic
 	for _, e := range pg.Errors {
 		code := e.Code
@@ -32,5 +25,5 @@ func findLines(s Source) ([]foundLine, []Diagnostic) {
 		}
 		diags = append(diags, Diagnostic{Code: code, Severity: Error, Message: e.Msg, Span: e.Span})
 	}
-	return lines, diags
+	return pg.Lines, diags
 }

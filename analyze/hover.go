@@ -21,7 +21,7 @@ func (r *Report) Hover(pos source.Pos) (markdown string, span source.Span, ok bo
 		return "", source.Span{}, false
 	}
 	res := ps.res
-	rel := pos - ps.base
+	rel := pos - ps.span.Start
 	var parts []partHover
 	if res.in != nil {
 		parts = substanceHovers(res.in)
@@ -39,7 +39,7 @@ func (r *Report) Hover(pos source.Pos) (markdown string, span source.Span, ok bo
 	}
 	if best >= 0 {
 		p := parts[best]
-		return p.markdown, p.span.Shift(ps.base), true
+		return p.markdown, p.span.Shift(ps.span.Start), true
 	}
 	md := res.hover
 	if res.chem != nil {
@@ -184,7 +184,7 @@ func atomHovers(in *stepInput, pred *prediction) []partHover {
 			}
 			role := ""
 			if isSubstrate {
-				role = pred.roles[i]
+				role = pred.role(i)
 			}
 			l := labels[i]
 			if role == "" && l == "" {

@@ -102,17 +102,17 @@ func (e *Engine) linesLocked(ctx context.Context, rep *Report, found []foundLine
 			}
 		}
 		res := e.resultLocked(ent, ins)
-		ps := placedStep{base: l.start, span: source.Span{Start: l.start, End: l.end}, res: res, text: ent.text, nLabels: len(*order)}
+		ps := placedStep{span: l.Span, res: res, text: ent.text, nLabels: len(*order)}
 		if len(res.refs) > 0 {
-			ps.extra = e.labelDiags(res, l.start, defined, later)
+			ps.extra = e.labelDiags(res, l.Span.Start, defined, later)
 		}
 		if res.label != "" {
 			if prev, dup := defined[res.label]; dup {
 				ps.extra = append(ps.extra, Diagnostic{Code: CodeLabelDuplicate, Severity: Error,
 					Message: fmt.Sprintf("label '%s' is already defined%s; later steps use the first one", res.label, where(prev, i, srcs)),
-					Span:    res.labelSpan.Shift(l.start)})
+					Span:    res.labelSpan.Shift(l.Span.Start)})
 			} else {
-				*defs = append(*defs, labelDef{name: res.label, src: i, span: res.labelSpan.Shift(l.start), handOn: res.handOn})
+				*defs = append(*defs, labelDef{name: res.label, src: i, span: res.labelSpan.Shift(l.Span.Start), handOn: res.handOn})
 				d := &(*defs)[len(*defs)-1]
 				defined[res.label] = d
 				*order = append(*order, d)

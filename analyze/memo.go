@@ -30,7 +30,7 @@ import (
 type memo struct {
 	smiles     bounded.Table[string, *readSMILES]
 	chem       *outcome.Cache // perception, products and CIP letters by molecule
-	outcomes   bounded.Table[outcomeKey, predicted]
+	outcomes   bounded.Table[outcomeKey, *prediction]
 	cautionsBy bounded.Table[cautionKey, []caution.Caution]
 }
 
@@ -100,21 +100,28 @@ type outcomeKey struct {
 	hasTemp, reflux bool
 }
 
-// predicted is a kept outcome and its conversion into the report's terms.
-type predicted struct {
-	o    *outcome.Outcome
-	pred *prediction
-}
-
 // prediction returns the outcome engine's answer for st in the report's
 // terms, predicting and converting it once per distinct step. The
-// prediction is the caller's own (a copy), but the slices, maps and
-// molecules in it are shared and must not be changed in place.
+// prediction is the caller's own (a copy), but the slices and molecules
+// in it are shared and must not be changed in place.
 func (m *memo) prediction(st *outcome.Step, solventIndex map[int]int) *prediction {
 	if m == nil || len(st.Reagents) > memoParties || len(st.Solvents) > memoParties {
 		if m != nil {
 			st.Cache = m.chem
 		}
+		return convert(runOutcome(st), solventIndex)
+	}
+	st.Cache = m.chem
+	// The outcome's solvent indices are ours whenever every solvent of
+	// the step is a dictionary solvent, as resolution makes them; only
+	// then is the converted prediction the same for every step, and worth
+	// keeping. The rare other steps are predicted each time: keeping the
+	// raw outcome for them would keep it for every step.
+	same := len(solventIndex) == len(st.Solvents)
+	for i, j := range solventIndex {
+		same = same && i == j
+	}
+	if !same {
 		return convert(runOutcome(st), solventIndex)
 	}
 	k := outcomeKey{sub: st.Substrate, nReag: len(st.Reagents), nSolv: len(st.Solvents), reflux: st.Reflux}
@@ -123,30 +130,9 @@ func (m *memo) prediction(st *outcome.Step, solventIndex map[int]int) *predictio
 	if st.TempC != nil {
 		k.tempC, k.hasTemp = *st.TempC, true
 	}
-	// The outcome's solvent indices are ours whenever every solvent of
-	// the step is a dictionary solvent, as resolution makes them; only
-	// then is the converted prediction the same for every step.
-	same := len(solventIndex) == len(st.Solvents)
-	for i, j := range solventIndex {
-		same = same && i == j
-	}
-	got, ok := m.outcomes.Get(k)
-	if ok && same {
-		p := *got.pred
-		return &p
-	}
-	if !ok {
-		st.Cache = m.chem
-		got.o = runOutcome(st)
-	}
-	p := convert(got.o, solventIndex)
-	if !same {
-		return p
-	}
-	got.pred = p
-	m.outcomes.Put(k, got)
-	c := *p
-	return &c
+	got := m.outcomes.Do(k, func() *prediction { return convert(runOutcome(st), solventIndex) })
+	p := *got
+	return &p
 }
 
 // convert is fromOutcome, with the answer for an engine that gave none.

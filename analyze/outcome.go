@@ -43,8 +43,7 @@ func (e *Engine) predict(in *stepInput) *prediction {
 
 // fromOutcome converts the outcome engine's answer.
 func fromOutcome(o *outcome.Outcome, solventIndex map[int]int) *prediction {
-	p := &prediction{notAnalysed: o.NotAnalysed, mechanism: string(o.Mechanism), reacting: o.Site, leaving: o.Leaving,
-		roles: make(map[int]string, 1+len(o.Leaving))}
+	p := &prediction{notAnalysed: o.NotAnalysed, mechanism: string(o.Mechanism), reacting: o.Site, leaving: o.Leaving}
 	for _, s := range o.Scores {
 		if s.Possible && s.Fraction >= 0.005 { // shares that round to 0% say nothing
 			p.distribution = append(p.distribution, share{string(s.Pathway), s.Fraction})
@@ -71,14 +70,6 @@ func fromOutcome(o *outcome.Outcome, solventIndex map[int]int) *prediction {
 	}
 	for _, c := range o.Stereo {
 		p.stereo = append(p.stereo, stereoChange{atom: c.Atom, before: c.Before, after: c.After, outcome: string(c.Change), letterChanged: c.LetterChanged, why: c.Why})
-	}
-	if o.Site >= 0 {
-		p.roles[o.Site] = "the reacting carbon: it bears the leaving group"
-	}
-	for _, a := range o.Leaving {
-		if _, ok := p.roles[a]; !ok {
-			p.roles[a] = "part of the leaving group"
-		}
 	}
 	for _, f := range o.Findings {
 		p.findings = append(p.findings, fromFinding(f, solventIndex))

@@ -8,7 +8,6 @@ import (
 
 // placedStep is a cached step result placed in its host.
 type placedStep struct {
-	base    source.Pos  // where the line starts in the host
 	span    source.Span // the line in the host
 	res     *stepResult
 	text    string // the line
@@ -36,7 +35,7 @@ type placement struct {
 	diags []Diagnostic
 }
 
-// place appends the result placed at ps.base to the report's steps and
+// place appends the result placed at the start of ps.span to the report's steps and
 // diagnostics, dropping the diagnostics whose codes are disabled.
 //
 // While a line stays put, its last placement is reused as is. A moved
@@ -46,18 +45,18 @@ type placement struct {
 // row: while a chemist types, the lines after the cursor move on every
 // keystroke, and keeping theirs would be wasted work.
 func (r *stepResult) place(rep *Report, ps placedStep, a *arena, disabled map[string]bool) {
-	if p := r.last.Load(); p != nil && p.base == ps.base && p.step.Span == ps.span {
+	if p := r.last.Load(); p != nil && p.base == ps.span.Start && p.step.Span == ps.span {
 		rep.Steps = append(rep.Steps, p.step)
 		rep.Diagnostics = append(rep.Diagnostics, p.diags...)
 		return
 	}
-	step := StepReport{Span: ps.span, Label: r.label, Inlay: r.inlay, Fixes: a.shiftFixes(r.fixes, ps.base), Prediction: r.pred}
+	step := StepReport{Span: ps.span, Label: r.label, Inlay: r.inlay, Fixes: a.shiftFixes(r.fixes, ps.span.Start), Prediction: r.pred}
 	if len(r.tokens) > 0 {
 		// r.tokens are sorted when the result is made, and a shift keeps
 		// the order.
 		ts := a.tokens(len(r.tokens))
 		for i, t := range r.tokens {
-			ts[i] = Token{Span: t.Span.Shift(ps.base), Kind: t.Kind}
+			ts[i] = Token{Span: t.Span.Shift(ps.span.Start), Kind: t.Kind}
 		}
 		step.Tokens = ts
 	}
@@ -67,22 +66,22 @@ func (r *stepResult) place(rep *Report, ps placedStep, a *arena, disabled map[st
 		if disabled[d.Code] {
 			continue
 		}
-		d.Span = d.Span.Shift(ps.base)
+		d.Span = d.Span.Shift(ps.span.Start)
 		if len(d.Related) > 0 {
 			rel := a.related(len(d.Related))
 			for j, x := range d.Related {
-				rel[j] = Related{Span: x.Span.Shift(ps.base), Message: x.Message}
+				rel[j] = Related{Span: x.Span.Shift(ps.span.Start), Message: x.Message}
 			}
 			d.Related = rel
 		}
-		d.Fixes = a.shiftFixes(d.Fixes, ps.base)
+		d.Fixes = a.shiftFixes(d.Fixes, ps.span.Start)
 		rep.Diagnostics = append(rep.Diagnostics, d)
 	}
-	if r.seen.Swap(int64(ps.base)) != int64(ps.base) {
+	if r.seen.Swap(int64(ps.span.Start)) != int64(ps.span.Start) {
 		return // moved since the last call: likely to move again
 	}
 	p := a.placement()
-	p.base, p.step = ps.base, step
+	p.base, p.step = ps.span.Start, step
 	if n := len(rep.Diagnostics) - from; n > 0 {
 		p.diags = a.diags(n)
 		copy(p.diags, rep.Diagnostics[from:])

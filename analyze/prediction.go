@@ -1,6 +1,10 @@
 package analyze
 
-import "walden/analyze/molecule"
+import (
+	"slices"
+
+	"walden/analyze/molecule"
+)
 
 // prediction is the outcome of one step in the terms the report needs. It
 // is filled from the outcome engine by predict (outcome.go), so that the
@@ -16,7 +20,18 @@ type prediction struct {
 	stereo       []stereoChange
 	reacting     int // substrate atom that reacts; -1 when none
 	leaving      []int
-	roles        map[int]string // substrate atom → its role in the step, for hover
+}
+
+// role says what substrate atom i does in the step, for hover; "" for an
+// onlooker.
+func (p *prediction) role(i int) string {
+	switch {
+	case i == p.reacting && i >= 0:
+		return "the reacting carbon: it bears the leaving group"
+	case slices.Contains(p.leaving, i):
+		return "part of the leaving group"
+	}
+	return ""
 }
 
 // share is one pathway's part of the predicted distribution.
