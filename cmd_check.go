@@ -16,8 +16,8 @@ import (
 	"unicode/utf8"
 
 	"walden/analyze"
-	"walden/internal/hugeheap"
 	"walden/grammar/source"
+	"walden/internal/hugeheap"
 )
 
 // checkHugeHeap is how much of `walden check`'s heap growth is advised

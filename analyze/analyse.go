@@ -185,8 +185,9 @@ func references(p notation.Step) []refUse {
 
 // slots lists where completion applies: every substance of the line.
 func slots(p notation.Step) []slot {
-	var out []slot
-	for _, ts := range [2]notation.Terms{p.Reactants(), p.Conditions()} {
+	reactants, conditions := p.Reactants(), p.Conditions()
+	out := make([]slot, 0, reactants.Len()+conditions.Len())
+	for _, ts := range [2]notation.Terms{reactants, conditions} {
 		for k := range ts.Len() {
 			if s, ok := ts.At(k).Substance(); ok {
 				out = append(out, slot{span: s.Span(), reference: s.Kind() == notation.Reference})

@@ -18,13 +18,27 @@ var setupWords = map[string]bool{
 // temperature and written products, with tokens for every part.
 func (r *resolver) build(p notation.Step) *stepInput {
 	in := &stepInput{parsed: p}
+	reactants, conditions, products := p.Reactants(), p.Conditions(), p.Products()
+	// One allocation for the substances of a line and one for its lists.
+	nSubs := 0
+	for _, ts := range [3]notation.Terms{reactants, conditions, products} {
+		for i := range ts.Len() {
+			if sub, ok := ts.At(i).Substance(); ok {
+				nSubs += max(1, sub.Parts().Len())
+			}
+		}
+	}
+	r.slab = make([]substance, 0, nSubs)
+	if nSubs > 1 {
+		lists := make([]*substance, 2*nSubs)
+		in.reagents, in.solvents = lists[:0:nSubs], lists[nSubs:nSubs:2*nSubs]
+	}
 	if m, ok := p.Mark(); ok {
 		r.token(m.Span, TokenStatus)
 	}
 	if l, ok := p.Label(); ok {
 		r.token(l.Span, TokenLabel)
 	}
-	reactants := p.Reactants()
 	for i := range reactants.Len() {
 		t := reactants.At(i)
 		r.sep(t)
@@ -46,7 +60,6 @@ func (r *resolver) build(p notation.Step) *stepInput {
 		}
 		r.quantities(in, t)
 	}
-	conditions := p.Conditions()
 	for i := range conditions.Len() {
 		t := conditions.At(i)
 		r.sep(t)
@@ -88,7 +101,6 @@ func (r *resolver) build(p notation.Step) *stepInput {
 	if a, ok := p.Arrow(); ok {
 		r.token(a.Span, TokenOperator)
 	}
-	products := p.Products()
 	for i := range products.Len() {
 		t := products.At(i)
 		r.sep(t)

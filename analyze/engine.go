@@ -51,7 +51,7 @@ type lineEntry struct {
 	step    notation.Step
 	errs    source.ErrorList
 	refs    []string // labels referred to, in order
-	results map[string]*stepResult
+	results results
 	used    uint64 // the last Analyze generation that used it
 
 	// The products referred to by the last Analyze call that used the
@@ -60,6 +60,37 @@ type lineEntry struct {
 	lastIns []*handOn
 	lastRes *stepResult
 	queued  bool // taken by a prewarm worker
+}
+
+// results are a line's results by the key of the products it refers to
+// ("" for none, as for most lines: they need no map).
+type results struct {
+	plain *stepResult
+	byKey map[string]*stepResult
+}
+
+func (rs *results) get(key string) (*stepResult, bool) {
+	if key == "" {
+		return rs.plain, rs.plain != nil
+	}
+	r, ok := rs.byKey[key]
+	return r, ok
+}
+
+// put keeps res under key. A line whose references keep changing keeps
+// only its latest few results.
+func (rs *results) put(key string, res *stepResult) {
+	if key == "" {
+		rs.plain = res
+		return
+	}
+	if rs.byKey == nil {
+		rs.byKey = make(map[string]*stepResult, 1)
+	}
+	if len(rs.byKey) > 8 {
+		clear(rs.byKey)
+	}
+	rs.byKey[key] = res
 }
 
 // The cache is swept once it holds a quarter more lines than it kept
@@ -251,7 +282,7 @@ func (e *Engine) prewarm(ctx context.Context, ents [][]*lineEntry) {
 		for _, ent := range es {
 			// A line analysed before has lastRes set: checking it first
 			// keeps an edit from looking every line up in its results.
-			if ent.lastRes == nil && len(ent.refs) == 0 && !ent.queued && ent.results[""] == nil {
+			if ent.lastRes == nil && len(ent.refs) == 0 && !ent.queued && ent.results.plain == nil {
 				ent.queued = true // an entry appears once however often its text does
 				todo = append(todo, ent)
 			}
@@ -281,8 +312,8 @@ func (e *Engine) prewarm(ctx context.Context, ents [][]*lineEntry) {
 				ent := todo[k]
 				res := e.analyseSafely(ent, nil)
 				e.mu.Lock()
-				if ent.results[""] == nil {
-					ent.results[""] = res
+				if ent.results.plain == nil {
+					ent.results.plain = res
 				}
 				ent.queued = false
 				e.mu.Unlock()
@@ -395,7 +426,7 @@ func (e *Engine) labelDiags(res *stepResult, base source.Pos, defined map[string
 // newLineEntry parses a line seen for the first time.
 func newLineEntry(text []byte, gen uint64) *lineEntry {
 	step, errs := notation.Parse(text, 0)
-	ent := &lineEntry{text: string(text), step: step, errs: errs, results: map[string]*stepResult{}, used: gen}
+	ent := &lineEntry{text: string(text), step: step, errs: errs, used: gen}
 	for _, r := range references(step) {
 		ent.refs = append(ent.refs, r.name)
 	}
@@ -427,18 +458,15 @@ func (e *Engine) resultLocked(ent *lineEntry, ins []*handOn) *stepResult {
 		}
 		key = kb.String()
 	}
-	res, ok := ent.results[key]
+	res, ok := ent.results.get(key)
 	if !ok {
 		e.mu.Unlock()
 		res = e.analyseSafely(ent, refs)
 		e.mu.Lock()
-		if old, ok := ent.results[key]; ok {
+		if old, ok := ent.results.get(key); ok {
 			res = old
 		} else {
-			if len(ent.results) > 8 {
-				clear(ent.results) // a line whose references keep changing: keep only the latest
-			}
-			ent.results[key] = res
+			ent.results.put(key, res)
 		}
 	}
 	ent.lastIns = append(ent.lastIns[:0:0], ins...)

@@ -110,5 +110,12 @@ func stepFixes(p notation.Step, in *stepInput, pred *prediction) []Fix {
 		at := lastTermEnd(p)
 		e = Edit{Span: source.Span{Start: at, End: at}, NewText: " -> " + smi}
 	}
-	return []Fix{{Title: "Write the predicted product after '->'", Edits: []Edit{e}}}
+	// Every step without a written product has this fix: the fix and its
+	// edit share one allocation.
+	both := &struct {
+		fix  [1]Fix
+		edit [1]Edit
+	}{edit: [1]Edit{e}}
+	both.fix[0] = Fix{Title: "Write the predicted product after '->'", Edits: both.edit[:]}
+	return both.fix[:]
 }

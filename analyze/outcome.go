@@ -1,8 +1,9 @@
 package analyze
 
 import (
+	"cmp"
 	"fmt"
-	"sort"
+	"slices"
 	"strings"
 
 	"walden/analyze/outcome"
@@ -27,10 +28,12 @@ func (e *Engine) predict(in *stepInput) *prediction {
 		t := in.tempC
 		st.TempC = &t
 	}
-	for _, r := range in.reagents {
-		st.Reagents = append(st.Reagents, outcome.Reactant{Mol: r.mol, Entry: r.reagent, Equiv: equivalents(r.term)})
+	st.Reagents = make([]outcome.Reactant, len(in.reagents))
+	for i, r := range in.reagents {
+		st.Reagents[i] = outcome.Reactant{Mol: r.mol, Entry: r.reagent, Equiv: equivalents(r.term)}
 	}
-	solventIndex := map[int]int{} // outcome's index → ours
+	st.Solvents = make([]outcome.SolventShare, 0, len(in.solvents))
+	solventIndex := make(map[int]int, len(in.solvents)) // outcome's index → ours
 	for i, s := range in.solvents {
 		if s.solvent == nil {
 			continue
@@ -46,24 +49,38 @@ func fromOutcome(o *outcome.Outcome, solventIndex map[int]int) *prediction {
 	p := &prediction{notAnalysed: o.NotAnalysed, mechanism: string(o.Mechanism), reacting: o.Site, leaving: o.Leaving}
 	for _, s := range o.Scores {
 		if s.Possible && s.Fraction >= 0.005 { // shares that round to 0% say nothing
+			if p.distribution == nil {
+				p.distribution = make([]share, 0, len(o.Scores))
+			}
 			p.distribution = append(p.distribution, share{string(s.Pathway), s.Fraction})
 		}
 	}
-	sort.SliceStable(p.distribution, func(i, j int) bool { return p.distribution[i].fraction > p.distribution[j].fraction })
-	for _, x := range o.Products {
-		smi := x.SMILES
-		if smi == "" {
-			smi = canonical(x.Mol)
+	slices.SortStableFunc(p.distribution, func(a, b share) int { return cmp.Compare(b.fraction, a.fraction) })
+	if len(o.Products) > 0 {
+		// The major product first (the last one named, should there be
+		// several), then the others in the engine's order.
+		p.products = make([]product, 0, len(o.Products))
+		add := func(x outcome.Product) {
+			smi := x.SMILES
+			if smi == "" {
+				smi = canonical(x.Mol)
+			}
+			p.products = append(p.products, product{smiles: smi, mol: x.Mol, fraction: x.Fraction, major: x.Role == outcome.Major, mechanism: string(x.Pathway), note: x.Note})
 		}
-		pr := product{smiles: smi, mol: x.Mol, fraction: x.Fraction, major: x.Role == outcome.Major, mechanism: string(x.Pathway), note: x.Note}
-		if pr.major {
-			p.products = append([]product{pr}, p.products...)
-		} else {
-			p.products = append(p.products, pr)
+		for i := len(o.Products) - 1; i >= 0; i-- {
+			if o.Products[i].Role == outcome.Major {
+				add(o.Products[i])
+			}
+		}
+		for _, x := range o.Products {
+			if x.Role != outcome.Major {
+				add(x)
+			}
 		}
 	}
 	if n := len(o.Reasons); n > 0 {
-		p.reasons, p.sources = make([]string, n), make([]string, n)
+		both := make([]string, 2*n)
+		p.reasons, p.sources = both[:n:n], both[n:]
 		for i, r := range o.Reasons {
 			p.reasons[i], p.sources[i] = r.Text, r.Source
 		}

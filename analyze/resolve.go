@@ -19,6 +19,7 @@ type resolver struct {
 	diags  []Diagnostic
 	tokens []Token
 	parts  []partHover
+	slab   []substance // room for the line's substances, made by build
 }
 
 // substance resolves one written substance. role is the token kind the
@@ -27,7 +28,14 @@ type resolver struct {
 // caller.
 func (r *resolver) substance(s notation.Substance, term notation.Term) *substance {
 	text := s.Text()
-	out := &substance{text: text, span: s.Span(), term: term, kind: s.Kind()}
+	var out *substance
+	if n := len(r.slab); n < cap(r.slab) {
+		r.slab = r.slab[:n+1]
+		out = &r.slab[n]
+	} else {
+		out = new(substance)
+	}
+	*out = substance{text: text, span: s.Span(), term: term, kind: s.Kind()}
 	switch out.kind {
 	case notation.Reference:
 		out.ref = text
