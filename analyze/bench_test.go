@@ -3,6 +3,7 @@ package analyze
 import (
 	"context"
 	"fmt"
+	"slices"
 	"strings"
 	"testing"
 
@@ -144,5 +145,28 @@ func BenchmarkOpenTypical(b *testing.B) {
 	defer benchcpu.Measure(b)()
 	for range b.N {
 		NewEngine(Config{}).AnalyzeLines(context.Background(), src)
+	}
+}
+
+// BenchmarkEditTypical re-reads the typical page (benchpage.Typical) as
+// the language server does after a keystroke in one step line
+// (AnalyzeLines): one line is new, every other line is looked up.
+func BenchmarkEditTypical(b *testing.B) {
+	text, steps := benchpage.Typical(5_000)
+	lines := strings.SplitAfter(text, "\n")
+	e := NewEngine(Config{})
+	e.AnalyzeLines(context.Background(), []Source{{Name: "typical.md", Kind: MarkdownPage, Text: []byte(text)}})
+	pages := make([][]byte, 64)
+	for i := range pages {
+		edited := slices.Clone(lines)
+		l := steps[(i*37)%len(steps)]
+		edited[l] = edited[l][:4] + "C" + edited[l][4:]
+		pages[i] = []byte(strings.Join(edited, ""))
+	}
+	b.ReportAllocs()
+	b.ResetTimer()
+	defer benchcpu.Measure(b)()
+	for i := range b.N {
+		e.AnalyzeLines(context.Background(), []Source{{Name: "typical.md", Kind: MarkdownPage, Text: pages[i%len(pages)]}})
 	}
 }

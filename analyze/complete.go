@@ -19,13 +19,13 @@ func (r *Report) Complete(pos source.Pos) []Completion {
 	rel := pos - ps.span.Start
 	// The word being typed: back from the cursor to a separator.
 	start := int(rel)
-	if start > len(ps.text) {
-		start = len(ps.text)
+	if start > len(ps.text()) {
+		start = len(ps.text())
 	}
-	for start > 0 && !strings.ContainsRune(" \t,+(/>", rune(ps.text[start-1])) {
+	for start > 0 && !strings.ContainsRune(" \t,+(/>", rune(ps.text()[start-1])) {
 		start--
 	}
-	word := ps.text[start:min(int(rel), len(ps.text))]
+	word := ps.text()[start:min(int(rel), len(ps.text()))]
 	span := source.Span{Start: ps.span.Start + source.Pos(start), End: pos}
 	if strings.HasPrefix(word, "@") {
 		return r.completeLabels(ps, word[1:], span)
@@ -39,7 +39,7 @@ func (r *Report) Complete(pos source.Pos) []Completion {
 // completeLabels offers the labels visible to the step.
 func (r *Report) completeLabels(ps *placedStep, prefix string, span source.Span) []Completion {
 	var out []Completion
-	for _, d := range r.labels[:min(ps.nLabels, len(r.labels))] {
+	for _, d := range r.labels[:min(int(ps.nLabels), len(r.labels))] {
 		if !strings.HasPrefix(strings.ToLower(d.name), strings.ToLower(prefix)) {
 			continue
 		}

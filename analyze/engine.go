@@ -222,7 +222,7 @@ func (e *Engine) analyze(ctx context.Context, srcs []Source, lazy bool) ([]*Repo
 				}
 			}
 			res := e.resultLocked(ent, ins)
-			ps := placedStep{span: l.Span, res: res, text: ent.text, nLabels: len(order)}
+			ps := placedStep{span: l.Span, res: res, ent: ent, nLabels: int32(len(order))}
 			rep.steps = append(rep.steps, ps)
 			from := len(rep.Diagnostics)
 			res.place(rep, ps, &a, e.disabled)

@@ -47,7 +47,7 @@ func (r *Report) AppendLines(dst []LineFindings) (lines []LineFindings, other []
 	lines = slices.Grow(dst, len(r.steps))
 	for i := range r.steps {
 		ps := &r.steps[i]
-		lines = append(lines, LineFindings{Span: ps.span, Own: ps.res.diags, Extra: ps.extra})
+		lines = append(lines, LineFindings{Span: ps.span, Own: ps.res.diags, Extra: ps.extras()})
 	}
 	return lines, r.lines.finds, true
 }
@@ -69,7 +69,7 @@ func (r *Report) Full() *Report {
 		for _, ps := range r.steps {
 			from := len(f.Diagnostics)
 			ps.res.place(f, ps, &a, nil)
-			f.Diagnostics = append(f.Diagnostics, ps.extra...)
+			f.Diagnostics = append(f.Diagnostics, ps.extras()...)
 			if len(f.Diagnostics)-from > 1 {
 				slices.SortStableFunc(f.Diagnostics[from:], byStart)
 			}
@@ -102,13 +102,14 @@ func (e *Engine) linesLocked(ctx context.Context, rep *Report, found []foundLine
 			}
 		}
 		res := e.resultLocked(ent, ins)
-		ps := placedStep{span: l.Span, res: res, text: ent.text, nLabels: len(*order)}
+		ps := placedStep{span: l.Span, res: res, ent: ent, nLabels: int32(len(*order))}
+		var extra []Diagnostic
 		if len(res.refs) > 0 {
-			ps.extra = e.labelDiags(res, l.Span.Start, defined, later)
+			extra = e.labelDiags(res, l.Span.Start, defined, later)
 		}
 		if res.label != "" {
 			if prev, dup := defined[res.label]; dup {
-				ps.extra = append(ps.extra, Diagnostic{Code: CodeLabelDuplicate, Severity: Error,
+				extra = append(extra, Diagnostic{Code: CodeLabelDuplicate, Severity: Error,
 					Message: fmt.Sprintf("label '%s' is already defined%s; later steps use the first one", res.label, where(prev, i, srcs)),
 					Span:    res.labelSpan.Shift(l.Span.Start)})
 			} else {
@@ -118,8 +119,9 @@ func (e *Engine) linesLocked(ctx context.Context, rep *Report, found []foundLine
 				*order = append(*order, d)
 			}
 		}
-		if len(ps.extra) > 0 {
-			ps.extra = ps.extra[:len(ps.extra):len(ps.extra)]
+		if len(extra) > 0 {
+			kept := extra[:len(extra):len(extra)]
+			ps.extra = &kept
 		}
 		rep.steps = append(rep.steps, ps)
 	}

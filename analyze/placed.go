@@ -10,10 +10,23 @@ import (
 type placedStep struct {
 	span    source.Span // the line in the host
 	res     *stepResult
-	text    string // the line
-	nLabels int    // how many labels (Report.labels) are visible to the step
+	ent     *lineEntry // the line's text and parse
+	nLabels int32      // how many labels (Report.labels) are visible to the step
 
-	extra []Diagnostic // label findings, in host positions; AnalyzeLines only
+	// Label findings, in host positions (AnalyzeLines only): few lines
+	// have any, and a page's steps are copied on every edit.
+	extra *[]Diagnostic
+}
+
+// text is the step's line.
+func (ps *placedStep) text() string { return ps.ent.text }
+
+// extras returns the label findings of the step.
+func (ps *placedStep) extras() []Diagnostic {
+	if ps.extra == nil {
+		return nil
+	}
+	return *ps.extra
 }
 
 // stepAt returns the step whose line holds pos (its end included, where
