@@ -18,17 +18,17 @@ func init() {
 		Code:   "caution-alkylating-agent",
 		Title:  "potent alkylating agent (methyl iodide, dimethyl sulfate, methyl triflate, benzylic and allylic halides)",
 		Source: "IARC Monographs (from memory); Prudent Practices in the Laboratory, NRC 2011 (from memory); common practice",
-		Check:  alkylating,
+		check:  alkylating,
 	})
 }
 
-func alkylating(s *Step) []Caution {
+func alkylating(f finder) []Caution {
 	var out []Caution
-	for _, x := range s.Substances {
+	for i, x := range f.Substances {
 		if x.Role == Solvent {
 			continue
 		}
-		what := alkylatingKind(x)
+		what := alkylatingKind(x, f.named(i, alkylatingNames))
 		if what == "" {
 			continue
 		}
@@ -42,9 +42,10 @@ func alkylating(s *Step) []Caution {
 	return out
 }
 
-// alkylatingKind names the kind of alkylating agent x is, or "".
-func alkylatingKind(x Substance) string {
-	if x.named("MeI", "methyl iodide", "iodomethane", "Me2SO4", "dimethyl sulfate", "MeOTf", "methyl triflate") {
+// alkylatingKind names the kind of alkylating agent x is, or ""; named
+// says whether x goes by one of alkylatingNames.
+func alkylatingKind(x Substance, named bool) string {
+	if named {
 		return "a potent alkylating agent, toxic and a suspected carcinogen"
 	}
 	m := x.Mol
@@ -75,3 +76,6 @@ func alkylatingKind(x Substance) string {
 func isMethylCarbon(m *molecule.Molecule, c int) bool {
 	return m.Atoms[c].Element == molecule.C && heavyNeighbours(m, c) == 1 && m.HydrogenCount(c) == 3
 }
+
+// alkylatingNames are the potent alkylating agents named by the chemist.
+var alkylatingNames = nameSetOf("MeI", "methyl iodide", "iodomethane", "Me2SO4", "dimethyl sulfate", "MeOTf", "methyl triflate")

@@ -12,13 +12,16 @@ func init() {
 		Code:   "caution-azide-acid",
 		Title:  "azide with acid (hydrazoic acid, HN3)",
 		Source: "Bretherick's Handbook of Reactive Chemical Hazards (from memory); sodium azide safety data sheet (common practice)",
-		Check:  azideAcid,
+		check:  azideAcid,
 	})
 }
 
-func azideAcid(s *Step) []Caution {
-	return withAcid(s, "caution-azide-acid",
-		func(x Substance) bool { return hasAzide(x.Mol) || x.named("NaN3", "sodium azide", "TMSN3") },
+func azideAcid(f finder) []Caution {
+	return withAcid(f, "caution-azide-acid",
+		func(i int) bool { return hasAzide(f.Substances[i].Mol) || f.named(i, azideNames) },
 		"azide with %s releases hydrazoic acid (HN3), which is volatile, highly toxic and explosive.",
 		"Keep azide away from acid, including in work-up and waste.")
 }
+
+// azideNames are the azides named by the chemist.
+var azideNames = nameSetOf("NaN3", "sodium azide", "TMSN3")

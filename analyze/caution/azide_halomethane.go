@@ -21,21 +21,23 @@ func init() {
 		Code:   "caution-azide-halomethane",
 		Title:  "azide with dichloromethane, chloroform or another polyhalomethane",
 		Source: "Bretherick's Handbook of Reactive Chemical Hazards (from memory); Conrow & Dean, Org. Process Res. Dev. 2008, 12, 1285 (from memory)",
-		Check:  azideHalomethane,
+		check:  azideHalomethane,
 	})
 }
 
-func azideHalomethane(s *Step) []Caution {
+func azideHalomethane(f finder) []Caution {
 	var out []Caution
-	azides := s.each(func(x Substance) bool {
-		return hasAzideIon(x.Mol) || x.named("NaN3", "sodium azide", "KN3", "potassium azide", "LiN3", "lithium azide", "TBAN3", "HN3")
+	var azBuf, svBuf [8]int
+	azides := f.each(azBuf[:0], func(i int) bool {
+		return hasAzideIon(f.Substances[i].Mol) || f.named(i, azideIonNames)
 	})
-	solvents := s.each(func(x Substance) bool {
-		return polyhalomethane(x.Mol) || x.named("DCM", "CH2Cl2", "dichloromethane", "methylene chloride", "chloroform", "CHCl3",
-			"CH2Br2", "dibromomethane", "bromoform", "CHBr3", "CCl4", "carbon tetrachloride", "tetrachloromethane", "CBr4", "carbon tetrabromide")
+	solvents := f.each(svBuf[:0], func(i int) bool {
+		return polyhalomethane(f.Substances[i].Mol) || f.named(i, halomethaneNames)
 	})
-	for _, az := range azides {
-		for _, sv := range solvents {
+	for _, i := range azides {
+		az := &f.Substances[i]
+		for _, j := range solvents {
+			sv := &f.Substances[j]
 			if az.Role == sv.Role && az.Index == sv.Index {
 				continue
 			}
@@ -49,3 +51,10 @@ func azideHalomethane(s *Step) []Caution {
 	}
 	return out
 }
+
+// azideIonNames are the ionic azides named by the chemist.
+var azideIonNames = nameSetOf("NaN3", "sodium azide", "KN3", "potassium azide", "LiN3", "lithium azide", "TBAN3", "HN3")
+
+// halomethaneNames are the polyhalomethanes named by the chemist.
+var halomethaneNames = nameSetOf("DCM", "CH2Cl2", "dichloromethane", "methylene chloride", "chloroform", "CHCl3",
+	"CH2Br2", "dibromomethane", "bromoform", "CHBr3", "CCl4", "carbon tetrachloride", "tetrachloromethane", "CBr4", "carbon tetrabromide")

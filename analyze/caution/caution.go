@@ -70,11 +70,18 @@ type Rule struct {
 	Title  string // one line, for the documentation
 	Source string // where the hazard is documented
 	Check  func(*Step) []Caution
+
+	check func(finder) []Caution // what Check runs; Find calls it directly
 }
 
 var rules []Rule
 
-func register(r Rule) { rules = append(rules, r) }
+// register adds a rule given by its check; Check is made from it.
+func register(r Rule) {
+	check := r.check
+	r.Check = func(s *Step) []Caution { return check(newFinder(s)) }
+	rules = append(rules, r)
+}
 
 // Rules returns every rule, sorted by code.
 func Rules() []Rule {
@@ -84,10 +91,13 @@ func Rules() []Rule {
 }
 
 // Find runs every rule on s and returns the cautions in rule order.
+// The name sets of every substance are worked out once here rather than
+// by each rule (see finder).
 func Find(s *Step) []Caution {
+	f := newFinder(s)
 	var out []Caution
 	for _, r := range sortedRules() {
-		out = append(out, r.Check(s)...)
+		out = append(out, r.check(f)...)
 	}
 	return out
 }
@@ -96,9 +106,24 @@ func Find(s *Step) []Caution {
 // and the list is complete once the package's init functions have run.
 var sortedRules = sync.OnceValue(Rules)
 
-// say builds a message: the finding, then the deferral.
+// say builds a message: the finding, then the deferral, in one
+// allocation.
 func say(parts ...string) string {
-	return strings.Join(parts, " ") + " " + Defer
+	n := len(Defer)
+	for _, p := range parts {
+		n += len(p) + 1
+	}
+	var b strings.Builder
+	b.Grow(n)
+	for i, p := range parts {
+		if i > 0 {
+			b.WriteByte(' ')
+		}
+		b.WriteString(p)
+	}
+	b.WriteByte(' ')
+	b.WriteString(Defer)
+	return b.String()
 }
 
 func (s Substance) party() Party { return Party{s.Role, s.Index} }
@@ -122,38 +147,80 @@ func (s Substance) display() string {
 	return "a substance"
 }
 
-// named reports whether any of the substance's names, or its text, equals
-// one of want (case-insensitive).
-func (s Substance) named(want ...string) bool {
-	if equalsAny(s.Text, want) {
+// named reports whether any of the substance's names, or its text,
+// trimmed, equals one of want (case-insensitive).
+func (s *Substance) named(want *nameSet) bool {
+	if want.has(s.Text) {
 		return true
 	}
 	for _, n := range s.Names {
-		if equalsAny(n, want) {
+		if want.has(n) {
 			return true
 		}
 	}
 	return false
 }
 
-// equalsAny reports whether n, trimmed, equals one of want
-// (case-insensitive).
-func equalsAny(n string, want []string) bool {
-	n = strings.TrimSpace(n)
-	for _, w := range want {
-		if strings.EqualFold(n, w) {
-			return true
-		}
-	}
-	return false
+// finder is a step as the rules see it: the step, and for each of its
+// first maxSets substances the name sets its text or names belong to.
+// The rules ask about names many times per substance (each asks its own
+// sets, several rules ask the same), and a dictionary entry carries a
+// dozen synonyms: reading each name once makes every later question one
+// bit test. Which substances are acids, which two rules ask, is worked
+// out once too. It is passed by value, so it costs no allocation.
+type finder struct {
+	*Step
+	sets  [maxSets]uint32
+	acids uint32 // bit i: substance i is an acid (see isAcid)
 }
 
-// each returns the substances for which ok holds.
-func (st *Step) each(ok func(Substance) bool) []Substance {
-	var out []Substance
-	for _, s := range st.Substances {
-		if ok(s) {
-			out = append(out, s)
+// maxSets is how many substances a finder keeps name sets for; a longer
+// step asks about the rest name by name.
+const maxSets = 8
+
+func newFinder(s *Step) finder {
+	f := finder{Step: s}
+	for i := range min(len(s.Substances), maxSets) {
+		x := &s.Substances[i]
+		bits := setsOf(x.Text)
+		for _, n := range x.Names {
+			bits |= setsOf(n)
+		}
+		f.sets[i] = bits
+		if isAcid(x) {
+			f.acids |= 1 << i
+		}
+	}
+	return f
+}
+
+// isAcid reports an acid: listed as one by the dictionary, or one by shape.
+func isAcid(x *Substance) bool { return x.Acid || strongAcid(x.Mol) }
+
+// acid reports whether substance i is an acid.
+func (f *finder) acid(i int) bool {
+	if i < maxSets {
+		return f.acids&(1<<i) != 0
+	}
+	return isAcid(&f.Substances[i])
+}
+
+// named reports whether substance i is named by one of want.
+func (f *finder) named(i int, want *nameSet) bool {
+	if i < maxSets {
+		return f.sets[i]&want.bit != 0
+	}
+	return f.Substances[i].named(want)
+}
+
+// each appends to out the indices in Substances of the substances for
+// which ok holds. Callers pass a small array of their own as out: a step
+// has few substances, and copying them out cost an allocation per rule
+// and step.
+func (f *finder) each(out []int, ok func(i int) bool) []int {
+	for i := range f.Substances {
+		if ok(i) {
+			out = append(out, i)
 		}
 	}
 	return out

@@ -14,25 +14,28 @@ func init() {
 		Code:   "caution-cyanide-acid",
 		Title:  "cyanide with acid (hydrogen cyanide, HCN)",
 		Source: "Bretherick's Handbook of Reactive Chemical Hazards (from memory); NaCN/KCN safety data sheets (common practice)",
-		Check:  cyanideAcid,
+		check:  cyanideAcid,
 	})
 }
 
-func cyanideAcid(s *Step) []Caution {
-	return withAcid(s, "caution-cyanide-acid",
-		func(x Substance) bool {
-			return hasCyanide(x.Mol) || x.named("NaCN", "KCN", "TMSCN", "CuCN", "sodium cyanide", "potassium cyanide")
+func cyanideAcid(f finder) []Caution {
+	return withAcid(f, "caution-cyanide-acid",
+		func(i int) bool {
+			return hasCyanide(f.Substances[i].Mol) || f.named(i, cyanideNames)
 		},
 		"cyanide with %s releases hydrogen cyanide (HCN), a highly toxic gas.",
 		"Keep cyanide away from acid, including in work-up and waste, and work where an HCN release can be contained.")
 }
 
 // withAcid pairs every substance that is(x) with every acid of the step.
-func withAcid(s *Step, code string, is func(Substance) bool, finding, advice string) []Caution {
+func withAcid(f finder, code string, is func(i int) bool, finding, advice string) []Caution {
 	var out []Caution
-	acids := s.each(func(x Substance) bool { return x.Acid || strongAcid(x.Mol) })
-	for _, a := range s.each(is) {
-		for _, h := range acids {
+	var acBuf, isBuf [8]int
+	acids := f.each(acBuf[:0], f.acid)
+	for _, i := range f.each(isBuf[:0], is) {
+		a := &f.Substances[i]
+		for _, j := range acids {
+			h := &f.Substances[j]
 			if a.Role == h.Role && a.Index == h.Index {
 				continue
 			}
@@ -45,3 +48,6 @@ func withAcid(s *Step, code string, is func(Substance) bool, finding, advice str
 	}
 	return out
 }
+
+// cyanideNames are the cyanides named by the chemist.
+var cyanideNames = nameSetOf("NaCN", "KCN", "TMSCN", "CuCN", "sodium cyanide", "potassium cyanide")

@@ -15,13 +15,13 @@ func init() {
 		Code:   "caution-above-boiling",
 		Title:  "temperature above the solvent's boiling point in an open setup",
 		Source: "common practice",
-		Check:  aboveBoiling,
+		check:  aboveBoiling,
 	})
 	register(Rule{
 		Code:   "caution-sealed-heating",
 		Title:  "solvent heated at or above its boiling point in a sealed vessel",
 		Source: "common practice",
-		Check:  sealedHeating,
+		check:  sealedHeating,
 	})
 }
 
@@ -30,7 +30,8 @@ func init() {
 // boiling point are the normal way to hold a reflux (common practice).
 const boilMargin = 10
 
-func aboveBoiling(s *Step) []Caution {
+func aboveBoiling(f finder) []Caution {
+	s := f.Step
 	if !s.HasTemp || s.Reflux || s.Sealed {
 		return nil
 	}
@@ -49,7 +50,8 @@ func aboveBoiling(s *Step) []Caution {
 	return out
 }
 
-func sealedHeating(s *Step) []Caution {
+func sealedHeating(f finder) []Caution {
+	s := f.Step
 	if !s.Sealed || !(s.Reflux || s.HasTemp) {
 		return nil
 	}

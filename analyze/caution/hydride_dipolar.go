@@ -14,21 +14,24 @@ func init() {
 		Code:   "caution-hydride-dipolar",
 		Title:  "sodium (or potassium) hydride in DMSO, DMF or DMAc",
 		Source: "Yang et al., Org. Process Res. Dev. 2019, 23, 2210 (from memory); Bretherick's Handbook (from memory)",
-		Check:  hydrideDipolar,
+		check:  hydrideDipolar,
 	})
 }
 
-func hydrideDipolar(s *Step) []Caution {
+func hydrideDipolar(f finder) []Caution {
 	var out []Caution
-	hydrides := s.each(func(x Substance) bool {
-		return x.Role != Solvent && (hasHydride(x.Mol) || x.named("NaH", "KH", "sodium hydride", "potassium hydride"))
+	var hyBuf, svBuf [8]int
+	hydrides := f.each(hyBuf[:0], func(i int) bool {
+		x := &f.Substances[i]
+		return x.Role != Solvent && (hasHydride(x.Mol) || f.named(i, hydrideNames))
 	})
-	solvents := s.each(func(x Substance) bool {
-		return x.named("DMSO", "DMF", "DMAc", "DMA", "dimethyl sulfoxide", "dimethylformamide", "N,N-dimethylformamide", "dimethylacetamide", "N,N-dimethylacetamide") ||
-			dipolarBySMILES(x)
+	solvents := f.each(svBuf[:0], func(i int) bool {
+		return f.named(i, dipolarNames) || dipolarBySMILES(f.Substances[i])
 	})
-	for _, h := range hydrides {
-		for _, sv := range solvents {
+	for _, i := range hydrides {
+		h := &f.Substances[i]
+		for _, j := range solvents {
+			sv := &f.Substances[j]
 			out = append(out, Caution{
 				Code: "caution-hydride-dipolar",
 				Message: say("Caution: "+h.display()+" in "+sv.display()+" can decompose exothermically and run away; explosions have been reported, sometimes below 50 °C.",
@@ -68,3 +71,10 @@ func dipolarBySMILES(x Substance) bool {
 	}
 	return false
 }
+
+// hydrideNames are the saline hydrides named by the chemist.
+var hydrideNames = nameSetOf("NaH", "KH", "sodium hydride", "potassium hydride")
+
+// dipolarNames are the dipolar aprotic amide and sulfoxide solvents named
+// by the chemist.
+var dipolarNames = nameSetOf("DMSO", "DMF", "DMAc", "DMA", "dimethyl sulfoxide", "dimethylformamide", "N,N-dimethylformamide", "dimethylacetamide", "N,N-dimethylacetamide")

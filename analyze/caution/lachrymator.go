@@ -14,14 +14,14 @@ func init() {
 		Code:   "caution-lachrymator",
 		Title:  "lachrymator (α-halo ketones and esters, chloroacetone, phenacyl bromide)",
 		Source: "Prudent Practices in the Laboratory, NRC 2011 (from memory); common practice",
-		Check:  lachrymator,
+		check:  lachrymator,
 	})
 }
 
-func lachrymator(s *Step) []Caution {
+func lachrymator(f finder) []Caution {
 	var out []Caution
-	for _, x := range s.Substances {
-		if x.Role == Solvent || !isLachrymator(x) {
+	for i, x := range f.Substances {
+		if x.Role == Solvent || !isLachrymator(x, f.named(i, lachrymatorNames)) {
 			continue
 		}
 		out = append(out, Caution{
@@ -34,8 +34,10 @@ func lachrymator(s *Step) []Caution {
 	return out
 }
 
-func isLachrymator(x Substance) bool {
-	if x.named("chloroacetone", "bromoacetone", "phenacyl bromide", "ethyl bromoacetate", "methyl bromoacetate", "tert-butyl bromoacetate", "chloroacetyl chloride", "acryloyl chloride") {
+// isLachrymator reports a known lachrymator: by name (named says whether
+// x goes by one of lachrymatorNames) or an α-halo carbonyl compound.
+func isLachrymator(x Substance, named bool) bool {
+	if named {
 		return true
 	}
 	m := x.Mol
@@ -47,3 +49,6 @@ func isLachrymator(x Substance) bool {
 	})
 	return found
 }
+
+// lachrymatorNames are the lachrymators named by the chemist.
+var lachrymatorNames = nameSetOf("chloroacetone", "bromoacetone", "phenacyl bromide", "ethyl bromoacetate", "methyl bromoacetate", "tert-butyl bromoacetate", "chloroacetyl chloride", "acryloyl chloride")

@@ -210,8 +210,17 @@ func (m *Molecule) Clone() *Molecule {
 		Axial:       append([]Axial(nil), m.Axial...),
 		adj:         make([][]Edge, len(m.adj)),
 	}
+	// The adjacency lists share one backing array, each capped at its
+	// length so that a bond added later moves only its own atoms' lists.
+	n := 0
+	for _, l := range m.adj {
+		n += len(l)
+	}
+	slab := make([]Edge, 0, n)
 	for i, l := range m.adj {
-		c.adj[i] = append([]Edge(nil), l...)
+		k := len(slab)
+		slab = append(slab, l...)
+		c.adj[i] = slab[k:len(slab):len(slab)]
 	}
 	return c
 }

@@ -88,6 +88,7 @@ func detectActivation(rs []Reactant, solvents []perceive.SolventEffect) activati
 		}
 		// The betaine from PPh3 and the azo ester is the base (pKaH ~13, common practice).
 		betaine := &molecule.Molecule{}
+		betaine.Grow(1, 0)
 		betaine.AddAtom(molecule.Atom{Element: molecule.N, Charge: -1, ImplicitH: 1, Bracket: true})
 		rest = append(rest, Reactant{Mol: betaine})
 		g := perceive.PerceiveReagents(rest)
@@ -188,8 +189,17 @@ func oxoAcid(m *molecule.Molecule) bool {
 
 func halideNucleophile(el molecule.Element, reactant int) (*perceive.Nucleophile, *molecule.Molecule) {
 	m := &molecule.Molecule{}
+	m.Grow(1, 0) // one atom: not the default room for a larger molecule
 	m.AddAtom(molecule.Atom{Element: el, Charge: -1, Bracket: true})
-	kind := map[molecule.Element]perceive.NucKind{molecule.Cl: "chloride", molecule.Br: "bromide", molecule.I: "iodide"}[el]
+	var kind perceive.NucKind
+	switch el {
+	case molecule.Cl:
+		kind = "chloride"
+	case molecule.Br:
+		kind = "bromide"
+	case molecule.I:
+		kind = "iodide"
+	}
 	d, _ := perceive.NucleophileData(kind)
 	return &perceive.Nucleophile{Candidate: perceive.Candidate{Reactant: reactant, Atom: 0, Kind: kind, Charge: -1, Data: d}, By: -1}, m
 }

@@ -17,10 +17,28 @@ type builder struct {
 // nu containing atom nuAtom (nu may be nil).
 func newBuilder(sub *molecule.Molecule, drop map[int]bool, skipCentres map[int]bool, nu *molecule.Molecule, nuAtom int) *builder {
 	b := &builder{out: &molecule.Molecule{}}
+	// Room for the whole product at once: growing the lists atom by atom
+	// allocated several times the product's size.
+	atoms, bonds := len(sub.Atoms), len(sub.Bonds)
+	var comp []int
+	want := 0
+	if nu != nil {
+		comp, _ = nu.Components()
+		want = comp[nuAtom]
+		for _, k := range comp {
+			if k == want {
+				atoms++
+			}
+		}
+		for _, bd := range nu.Bonds {
+			if comp[bd.A] == want {
+				bonds++
+			}
+		}
+	}
+	b.out.Grow(atoms, bonds+1) // +1: the bond the reaction makes
 	b.subMap = copyInto(b.out, sub, func(i int) bool { return !drop[i] }, skipCentres)
 	if nu != nil {
-		comp, _ := nu.Components()
-		want := comp[nuAtom]
 		b.nuMap = copyInto(b.out, nu, func(i int) bool { return comp[i] == want }, map[int]bool{nuAtom: true})
 	}
 	return b

@@ -10,17 +10,19 @@ import (
 // Cache keeps the parts of a prediction that do not depend on the
 // conditions, for a caller that predicts many steps on the same
 // molecules (a notebook whose steps differ in temperature or amounts):
-// the perception of a substrate, ionised reagents, the solvent's
-// nucleophile, the products of each pathway and CIP letters.
+// the perception of a substrate, ionised reagents, the perceived
+// solvents and the solvent's nucleophile, the products of each pathway
+// and of sulfonylations, CIP letters, the symmetry classes of
+// nucleophiles and the texts of reasons.
 //
-// A Cache knows molecules by identity: a caller that sets Step.Cache
-// promises that the substrate and reagent molecules are never changed
-// afterwards (Predict itself only reads them, and the products it hands
-// out through a Cache are shared and must not be changed either). Keys
-// hold the molecules they name, so an address is never reused while an
-// entry lives. Each table is bounded (internal/bounded). A Cache is safe
-// for concurrent use; the zero value is an empty Cache. A nil *Cache caches
-// nothing.
+// A Cache knows molecules and solvent entries by identity: a caller that
+// sets Step.Cache promises that the substrate and reagent molecules and
+// the solvent entries are never changed afterwards (Predict itself only
+// reads them, and the products it hands out through a Cache are shared
+// and must not be changed either). Keys hold the molecules they name, so
+// an address is never reused while an entry lives. Each table is bounded
+// (internal/bounded). A Cache is safe for concurrent use; the zero value
+// is an empty Cache. A nil *Cache caches nothing.
 type Cache struct {
 	subs     bounded.Table[*molecule.Molecule, *perceive.Substrate]
 	ionised  bounded.Table[*molecule.Molecule, *molecule.Molecule]
@@ -28,6 +30,10 @@ type Cache struct {
 	reagents bounded.Table[reagentsKey, perceive.Reagents]
 	products bounded.Table[productKey, []Product]
 	labels   bounded.Table[labelKey, string]
+	syms     bounded.Table[*molecule.Molecule, []uint64]
+	media    bounded.Table[solventsKey, perceive.Medium]
+	esters   bounded.Table[sulfonateKey, sulfonateEster]
+	texts    texts // reason texts, shared between predictions
 }
 
 // NewCache returns an empty Cache. Its tables are made on first use: a
@@ -71,6 +77,25 @@ func (c *Cache) perceiveReagents(rs []Reactant) perceive.Reagents {
 	k := reagentsKey{n: len(rs)}
 	copy(k.rs[:], rs)
 	return c.reagents.Do(k, func() perceive.Reagents { return perceive.PerceiveReagents(rs) })
+}
+
+// solventsKey is the solvents of a step: dictionary entries by identity,
+// shares by value.
+type solventsKey struct {
+	ss [cachedReagents]SolventShare
+	n  int
+}
+
+// solvents returns perceive.PerceiveSolvents(ss), once per distinct
+// list: the steps of a page mostly differ in temperature, not solvent.
+// The answer's lists are shared: callers must not change them.
+func (c *Cache) solvents(ss []SolventShare) perceive.Medium {
+	if c == nil || len(ss) > len(solventsKey{}.ss) {
+		return perceive.PerceiveSolvents(ss)
+	}
+	k := solventsKey{n: len(ss)}
+	copy(k.ss[:], ss)
+	return c.media.Do(k, func() perceive.Medium { return perceive.PerceiveSolvents(ss) })
 }
 
 // solventNu is the nucleophile of a solvent, read from its SMILES.
@@ -144,6 +169,24 @@ func (c *Cache) pathwayProducts(sub *molecule.Molecule, sc *scoring, p Mechanism
 		return buildProducts(sub, sc, p)
 	}
 	return c.products.Do(k, func() []Product { return buildProducts(sub, sc, p) })
+}
+
+// sulfonate returns buildSulfonate(k), once per key. The molecule is
+// shared: callers must not change it.
+func (c *Cache) sulfonate(k sulfonateKey) sulfonateEster {
+	if c == nil {
+		return buildSulfonate(k)
+	}
+	return c.esters.Do(k, func() sulfonateEster { return buildSulfonate(k) })
+}
+
+// symmetry returns perceive.SymmetryClasses(m), once per molecule. The
+// answer is shared: callers must not change it.
+func (c *Cache) symmetry(m *molecule.Molecule) []uint64 {
+	if c == nil {
+		return perceive.SymmetryClasses(m)
+	}
+	return c.syms.Do(m, func() []uint64 { return perceive.SymmetryClasses(m) })
 }
 
 // labelKey names one atom of one molecule.

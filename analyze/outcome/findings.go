@@ -11,7 +11,15 @@ import (
 // findings adds the diagnostics that follow from the scores.
 func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 	s := c.site
-	site := Parties{Atoms: []int{s.Carbon}, Reactant: -1, Solvent: -1}
+	// The reacting carbon as the party of a finding, made when the first
+	// finding needs it and shared by the rest: most steps have none.
+	var siteAtoms []int
+	site := func() Parties {
+		if siteAtoms == nil {
+			siteAtoms = []int{s.Carbon}
+		}
+		return Parties{Atoms: siteAtoms, Reactant: -1, Solvent: -1}
+	}
 	nuIdx := -1
 	if c.nu != nil && !c.nu.FromSolvent {
 		nuIdx = c.nu.Reactant
@@ -26,14 +34,14 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 			Message: fmt.Sprintf("the carbon bearing the %s is tertiary: SN2 is blocked, so %s acts as a base or waits for ionisation", s.Leaving.Data.Name, c.nu.Kind.Words())})
 	}
 	if s.Flags.Has(perceive.Bridgehead) {
-		o.Findings = append(o.Findings, Finding{Code: CodeBridgehead, Severity: Error, Parties: site, Message: "the leaving group is on a bridgehead carbon: no backside attack and no planar cation"})
+		o.Findings = append(o.Findings, Finding{Code: CodeBridgehead, Severity: Error, Parties: site(), Message: "the leaving group is on a bridgehead carbon: no backside attack and no planar cation"})
 	}
 	if s.Flags.Has(perceive.Neopentyl) || (s.Flags.Has(perceive.BetaBranched) && s.Degree == perceive.Primary) {
 		what := "β-branched"
 		if s.Flags.Has(perceive.Neopentyl) {
 			what = "neopentyl-type"
 		}
-		o.Findings = append(o.Findings, Finding{Code: CodeHinderedBackside, Severity: Warning, Parties: site,
+		o.Findings = append(o.Findings, Finding{Code: CodeHinderedBackside, Severity: Warning, Parties: site(),
 			Message: fmt.Sprintf("%s carbon: SN2 here is slowed by the branching next door (neopentyl ~10^-5, isobutyl ~1/30 of ethyl)", what)})
 	}
 	baseEliminates(o, st, c, frac)
@@ -59,7 +67,7 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 			Message: fmt.Sprintf("%s is a weak nucleophile (Pearson n %.1f): substitution is slow", c.nu.Kind.Words(), c.nu.Data.N)})
 	}
 	if frac[SN1] > 0.2 && perceive.TetrahedralAt(st.Substrate, s.Carbon) >= 0 {
-		o.Findings = append(o.Findings, Finding{Code: CodeRacemises, Severity: Warning, Parties: site, Message: "ionisation gives a planar carbocation: the configuration at this carbon is lost (racemic product)"})
+		o.Findings = append(o.Findings, Finding{Code: CodeRacemises, Severity: Warning, Parties: site(), Message: "ionisation gives a planar carbocation: the configuration at this carbon is lost (racemic product)"})
 	}
 	if c.cation.shift != "" && frac[SN1]+frac[E1] > 0.2 {
 		o.Findings = append(o.Findings, Finding{Code: CodeRearranges, Severity: Warning, Parties: Parties{Atoms: []int{s.Carbon, c.cation.centre}, Reactant: -1, Solvent: -1},
@@ -70,18 +78,20 @@ func findings(o *Outcome, st Step, c *scoring, rg perceive.Reagents) {
 		o.Findings = append(o.Findings, Finding{Code: CodeOverAlkylation, Severity: Warning, Parties: Parties{Reactant: nuIdx, Solvent: -1},
 			Message: overAlkylationMessage(c)})
 	}
-	if c.nu != nil && len(c.nu.Alternatives) > 0 && c.nuMol != nil && distinctSites(c) > 0 {
-		o.Findings = append(o.Findings, Finding{Code: CodeNucleophileSites, Severity: Warning, Parties: Parties{Reactant: nuIdx, Solvent: -1},
-			Message: fmt.Sprintf("the nucleophile has %d other site(s) of similar reactivity: a mixture may form", distinctSites(c))})
+	if c.nu != nil && len(c.nu.Alternatives) > 0 && c.nuMol != nil {
+		if n := distinctSites(c); n > 0 {
+			o.Findings = append(o.Findings, Finding{Code: CodeNucleophileSites, Severity: Warning, Parties: Parties{Reactant: nuIdx, Solvent: -1},
+				Message: fmt.Sprintf("the nucleophile has %d other site(s) of similar reactivity: a mixture may form", n)})
+		}
 	}
 	if c.nu != nil && c.nu.Ambident != "" {
 		o.Findings = append(o.Findings, Finding{Code: CodeAmbident, Severity: Info, Parties: Parties{Reactant: nuIdx, Solvent: -1}, Message: c.nu.Ambident})
 	}
 	insoluble(o, st, c, rg)
 	if o.Mechanism == None {
-		o.Findings = append(o.Findings, Finding{Code: CodeNoReaction, Severity: Warning, Parties: site, Message: "no pathway is fast enough under these conditions: no reaction expected"})
+		o.Findings = append(o.Findings, Finding{Code: CodeNoReaction, Severity: Warning, Parties: site(), Message: "no pathway is fast enough under these conditions: no reaction expected"})
 	} else if best := bestScore(o); best < w("reaction-threshold")+1.5 {
-		o.Findings = append(o.Findings, Finding{Code: CodeSlow, Severity: Info, Parties: site, Message: "the predicted pathway is slow under these conditions"})
+		o.Findings = append(o.Findings, Finding{Code: CodeSlow, Severity: Info, Parties: site(), Message: "the predicted pathway is slow under these conditions"})
 	}
 }
 
@@ -118,7 +128,7 @@ func roundFactor(f float64) string {
 // distinctSites counts the alternative nucleophilic sites that are not
 // symmetry-equivalent to the one that reacts (those give another product).
 func distinctSites(c *scoring) int {
-	sym := perceive.SymmetryClasses(c.nuMol)
+	sym := c.cache.symmetry(c.nuMol)
 	n := 0
 	for _, a := range c.nu.Alternatives {
 		if a.Atom < len(sym) && sym[a.Atom] != sym[c.nu.Atom] {

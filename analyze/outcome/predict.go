@@ -4,7 +4,6 @@ import (
 	"fmt"
 	"math"
 	"slices"
-	"sort"
 
 	"walden/analyze/molecule"
 	"walden/analyze/perceive"
@@ -28,18 +27,25 @@ func Predict(st Step) (o Outcome) {
 		o.NotAnalysed = "no substrate"
 		return o
 	}
+	// The scoring state, the ionised reagents, the usable sites and the
+	// reason texts live in pooled scratch: a page predicts thousands of
+	// steps and each fresh allocation costs more than the rules themselves.
+	// Nothing the Outcome keeps points into it.
+	c := getScoring()
+	defer putScoring(c)
 	sub := st.Cache.Substrate(st.Substrate)
-	md := perceive.PerceiveMedium(st.Solvents, st.TempC, st.Reflux)
+	md := st.Cache.solvents(st.Solvents).AtTemp(st.TempC, st.Reflux)
 	if md.Defaulted {
 		o.Findings = append(o.Findings, Finding{Code: CodeNoSolvent, Severity: Info, Message: "no solvent given: the prediction assumes " + perceive.DefaultSolvent, Parties: Parties{Reactant: -1, Solvent: -1}})
 	}
-	ionised := make([]Reactant, len(st.Reagents))
-	for i, r := range st.Reagents {
-		ionised[i] = r
+	ionised := c.ionised[:0]
+	for _, r := range st.Reagents {
 		if r.Mol != nil {
-			ionised[i].Mol = st.Cache.ionise(r.Mol)
+			r.Mol = st.Cache.ionise(r.Mol)
 		}
+		ionised = append(ionised, r)
 	}
+	c.ionised = ionised
 	st.Reagents = ionised
 	act := detectActivation(st.Reagents, md.Parts)
 	rg := st.Cache.perceiveReagents(st.Reagents)
@@ -52,15 +58,18 @@ func Predict(st Step) (o Outcome) {
 	if act.kind == actSulfonylate {
 		return sulfonylate(o, st, sub, act)
 	}
-	sites := usableSites(sub, act)
+	c.sites = usableSites(c.sites[:0], sub, act)
+	sites := c.sites
 	if len(sites) == 0 {
 		return noSite(o, sub, rg)
 	}
-	site := sites[0]
+	c.siteVal = sites[0]
+	site := &c.siteVal
 	o.Site = site.Carbon
-	o.Leaving = append([]int{site.Leaving.Attach}, site.Leaving.Atoms...)
 	if len(site.Leaving.Atoms) > 0 {
 		o.Leaving = site.Leaving.Atoms
+	} else {
+		o.Leaving = []int{site.Leaving.Attach}
 	}
 	if len(sites) > 1 && site.Leaving.Kind == perceive.Epoxide && sites[1].Leaving.Attach == site.Leaving.Attach {
 		o.Reasons = append(o.Reasons, Reason{Rule: "epoxide-opening", Text: "a nucleophile opens an epoxide from the back side at the less substituted carbon (basic or neutral conditions)", Source: "Parker, R. E.; Isaacs, N. S. Chem. Rev. 1959, 59, 737"})
@@ -70,11 +79,10 @@ func Predict(st Step) (o Outcome) {
 			Parties: Parties{Atoms: []int{site.Carbon, sites[1].Carbon}, Reactant: -1, Solvent: -1}})
 	}
 	if act.kind == actDehydrate {
-		return dehydrate(o, sub, &site, md)
+		return dehydrate(o, sub, site, md)
 	}
 
-	c := &scoring{sub: sub, site: &site, md: md, act: act, can: [4]bool{true, true, true, true}, cache: st.Cache,
-		reasons: make([]Reason, 0, len(Rules))} // most rules say one reason, some none
+	c.sub, c.site, c.md, c.act, c.can, c.cache = sub, site, md, act, [4]bool{true, true, true, true}, st.Cache
 	switch {
 	case act.nu != nil:
 		c.nu, c.nuMol = act.nu, act.nuMol
@@ -90,23 +98,19 @@ func Predict(st Step) (o Outcome) {
 	if site.Flags.Has(perceive.NoStereo) {
 		o.Findings = append(o.Findings, Finding{Code: CodeUndefinedConfig, Severity: Info, Message: "the reacting carbon is a stereocentre without a written configuration: the product's configuration cannot be predicted", Parties: Parties{Atoms: []int{site.Carbon}, Reactant: -1, Solvent: -1}})
 	}
-	c.cation = findCation(sub, &site)
+	c.cation = findCation(sub, site)
 	if act.kind == actAppel || act.kind == actMitsunobu {
 		c.block(SN1)
 		c.block(E1)
 	}
-	if dehalogenate(&o, st, sub, &site, c) || bromonium(&o, st, &site, c) || epoxideClosure(&o, st, &site, c) {
+	if dehalogenate(&o, st, sub, site, c) || bromonium(&o, st, site, c) || epoxideClosure(&o, st, site, c) {
 		return o
 	}
 	for i := range Rules {
 		c.rule = &Rules[i]
 		Rules[i].Apply(c)
 	}
-	if len(o.Reasons) == 0 {
-		o.Reasons = slices.Clip(c.reasons) // no copy: the rules are done with them
-	} else {
-		o.Reasons = append(o.Reasons, c.reasons...)
-	}
+	o.Reasons = c.takeReasons(o.Reasons)
 	distribute(&o, c)
 	findings(&o, st, c, rg)
 	if o.Mechanism == None {
@@ -117,11 +121,10 @@ func Predict(st Step) (o Outcome) {
 	return o
 }
 
-// usableSites returns the sites that can react under the step's
+// usableSites appends to out the sites that can react under the step's
 // reagents, best first, with activated hydroxyls turned into their
 // activated leaving group.
-func usableSites(sub *perceive.Substrate, act activation) []perceive.Site {
-	var out []perceive.Site
+func usableSites(out []perceive.Site, sub *perceive.Substrate, act activation) []perceive.Site {
 	for _, s := range sub.Sites {
 		if !s.Flags.Has(perceive.Sp3) {
 			continue
@@ -162,7 +165,17 @@ func usableSites(sub *perceive.Substrate, act activation) []perceive.Site {
 		}
 		out = kept
 	}
-	sort.SliceStable(out, func(i, j int) bool { return out[i].Rank > out[j].Rank })
+	// A stable sort by rank, best first, without sort.SliceStable's
+	// reflection and closure allocations.
+	slices.SortStableFunc(out, func(a, b perceive.Site) int {
+		switch {
+		case a.Rank > b.Rank:
+			return -1
+		case b.Rank > a.Rank:
+			return 1
+		}
+		return 0
+	})
 	return out
 }
 

@@ -2,7 +2,7 @@ package outcome
 
 import (
 	"math"
-	"sort"
+	"slices"
 
 	"walden/analyze/molecule"
 	"walden/analyze/perceive"
@@ -16,18 +16,27 @@ const minShare = 0.02
 // products generates the products of every pathway with a share worth
 // listing, and marks the largest one major.
 func products(o *Outcome, st Step, c *scoring) {
-	var out []Product
-	for _, s := range o.Scores {
+	// Each pathway's products first, so that the list is made once at
+	// its final size.
+	var per [4][]Product
+	n := 0
+	for i, s := range o.Scores {
 		if !s.Possible || s.Fraction < minShare {
 			continue
 		}
-		var ps []Product
 		if c.cache != nil {
-			ps = c.cache.pathwayProducts(st.Substrate, c, s.Pathway)
+			per[i] = c.cache.pathwayProducts(st.Substrate, c, s.Pathway)
 		} else {
-			ps = buildProducts(st.Substrate, c, s.Pathway)
+			per[i] = buildProducts(st.Substrate, c, s.Pathway)
 		}
-		for _, p := range ps {
+		n += len(per[i])
+	}
+	var out []Product
+	if n > 0 {
+		out = make([]Product, 0, n)
+	}
+	for i, s := range o.Scores {
+		for _, p := range per[i] {
 			switch s.Pathway {
 			case SN2, SN1:
 				p.Fraction = s.Fraction
@@ -37,22 +46,35 @@ func products(o *Outcome, st Step, c *scoring) {
 			out = append(out, p)
 		}
 	}
-	sort.SliceStable(out, func(i, j int) bool { return out[i].Fraction > out[j].Fraction })
+	// Largest share first, stably, as sort.SliceStable with ">" did.
+	slices.SortStableFunc(out, func(a, b Product) int {
+		switch {
+		case a.Fraction > b.Fraction:
+			return -1
+		case b.Fraction > a.Fraction:
+			return 1
+		}
+		return 0
+	})
 	for i := range out {
 		out[i].Role = Minor
 		if i == 0 {
 			out[i].Role = Major
 		}
 	}
-	// The same product by two pathways is listed once.
-	seen := map[string]int{}
+	// The same product by two pathways is listed once, where it first
+	// appears (the lists are a few products long: no map needed).
 	kept := out[:0]
+outer:
 	for _, p := range out {
-		if j, ok := seen[p.SMILES]; ok && p.SMILES != "" {
-			kept[j].Fraction += p.Fraction
-			continue
+		if p.SMILES != "" {
+			for j := range kept {
+				if kept[j].SMILES == p.SMILES {
+					kept[j].Fraction += p.Fraction
+					continue outer
+				}
+			}
 		}
-		seen[p.SMILES] = len(kept)
 		kept = append(kept, p)
 	}
 	o.Products = kept
@@ -178,7 +200,17 @@ func substitute(sub *molecule.Molecule, c *scoring, ionised bool) *Product {
 
 // degenerate: the nucleophile is the same halide as the leaving group.
 func degenerate(c *scoring) bool {
-	k := map[perceive.LeavingKind]perceive.NucKind{perceive.Iodide: "iodide", perceive.Bromide: "bromide", perceive.Chloride: "chloride", perceive.Fluoride: "fluoride"}[c.site.Leaving.Kind]
+	var k perceive.NucKind
+	switch c.site.Leaving.Kind {
+	case perceive.Iodide:
+		k = "iodide"
+	case perceive.Bromide:
+		k = "bromide"
+	case perceive.Chloride:
+		k = "chloride"
+	case perceive.Fluoride:
+		k = "fluoride"
+	}
 	return k != "" && c.nu != nil && c.nu.Kind == k
 }
 
@@ -188,6 +220,7 @@ func cutBond(b *builder, a, c int) {
 	pa, pc := b.subMap[a], b.subMap[c]
 	old := b.out
 	m := &molecule.Molecule{}
+	m.Grow(len(old.Atoms), len(old.Bonds)+1) // +1: the bond the caller adds next
 	for _, at := range old.Atoms {
 		m.AddAtom(at)
 	}
@@ -389,10 +422,12 @@ func alkenes(sub *molecule.Molecule, c *scoring, beta perceive.Beta, p Mechanism
 	// Stereoselective: larger groups trans.
 	bigA := bigger(sub, a, ra, bt)
 	bigB := bigger(sub, bt, rb, a)
-	e := m.Clone()
-	e.CisTrans = append(e.CisTrans, molecule.CisTrans{Ends: [2]int{b.subMap[a], b.subMap[bt]}, Refs: [2]int{b.subMap[bigA], b.subMap[bigB]}, Config: molecule.Opposite})
+	// The Z isomer is a copy; the E isomer is m itself (nothing else
+	// holds it), which saves building a third molecule.
 	z := m.Clone()
 	z.CisTrans = append(z.CisTrans, molecule.CisTrans{Ends: [2]int{b.subMap[a], b.subMap[bt]}, Refs: [2]int{b.subMap[bigA], b.subMap[bigB]}, Config: molecule.Together})
+	e := m
+	e.CisTrans = append(e.CisTrans, molecule.CisTrans{Ends: [2]int{b.subMap[a], b.subMap[bt]}, Refs: [2]int{b.subMap[bigA], b.subMap[bigB]}, Config: molecule.Opposite})
 	fe := math.Pow(10, w("e-over-z"))
 	_ = note
 	return []Product{{Mol: e, Pathway: p, Fraction: fe / (fe + 1), Note: "larger groups trans"}, {Mol: z, Pathway: p, Fraction: 1 / (fe + 1)}}

@@ -51,6 +51,19 @@ var baseStrengthRule = Rule{
 			v += w("soft-base")
 		}
 		c.add(E2, v)
-		c.say("base %s (pKaH %.1f) with %d removable β-hydrogen(s), best alkene %d-substituted%s: E2 term %+.1f", c.base.Kind.Words(), c.base.PKaH, nH, int(best), map[bool]string{true: ", conjugated", false: ""}[conj], v)
+		b := append(c.text, "base "...)
+		b = append(b, c.base.Kind.Words()...)
+		b = append(b, " (pKaH "...)
+		b = appendFloat(b, c.base.PKaH, 1)
+		b = append(b, ") with "...)
+		b = appendInt(b, nH)
+		b = append(b, " removable β-hydrogen(s), best alkene "...)
+		b = appendInt(b, int(best))
+		b = append(b, "-substituted"...)
+		if conj {
+			b = append(b, ", conjugated"...)
+		}
+		b = append(b, ": E2 term "...)
+		c.said(appendSigned(b, v, 1))
 	},
 }

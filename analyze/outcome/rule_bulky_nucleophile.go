@@ -14,6 +14,8 @@ var bulkyNucleophileRule = Rule{
 			return
 		}
 		c.add(SN2, w("bulky-sn2"))
-		c.say("the nucleophile is bulky: substitution away from methyl is slowed (%+.1f)", w("bulky-sn2"))
+		b := append(c.text, "the nucleophile is bulky: substitution away from methyl is slowed ("...)
+		b = appendSigned(b, w("bulky-sn2"), 1)
+		c.said(append(b, ')'))
 	},
 }

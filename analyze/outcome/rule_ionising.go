@@ -12,6 +12,9 @@ var ionisingPowerRule = Rule{
 	Apply: func(c *scoring) {
 		c.add(SN1, c.md.Y)
 		c.add(E1, c.md.Y)
-		c.say("ionising power of %s: Y = %+.1f", c.md.Name, c.md.Y)
+		b := append(c.text, "ionising power of "...)
+		b = append(b, c.md.Name...)
+		b = append(b, ": Y = "...)
+		c.said(appendSigned(b, c.md.Y, 1))
 	},
 }

@@ -14,6 +14,14 @@ var leavingGroupRule = Rule{
 		c.add(E2, d.SN2)
 		c.add(SN1, d.Solvolysis)
 		c.add(E1, d.Solvolysis)
-		c.say("leaving group %s (%s): %+.1f for SN2/E2 and %+.1f for ionisation (log10, chloride = 0)", d.Kind, d.Name, d.SN2, d.Solvolysis)
+		b := append(c.text, "leaving group "...)
+		b = append(b, d.Kind...)
+		b = append(b, " ("...)
+		b = append(b, d.Name...)
+		b = append(b, "): "...)
+		b = appendSigned(b, d.SN2, 1)
+		b = append(b, " for SN2/E2 and "...)
+		b = appendSigned(b, d.Solvolysis, 1)
+		c.said(append(b, " for ionisation (log10, chloride = 0)"...))
 	},
 }

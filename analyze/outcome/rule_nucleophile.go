@@ -16,10 +16,16 @@ var nucleophilicityRule = Rule{
 		}
 		n := c.nu.Data.N
 		c.add(SN2, n)
-		c.say("nucleophile %s: n = %.2f (Pearson n(CH3I), methanol = 0)", c.nu.Kind.Words(), n)
+		b := append(c.text, "nucleophile "...)
+		b = append(b, c.nu.Kind.Words()...)
+		b = append(b, ": n = "...)
+		b = appendFloat(b, n, 2)
+		c.said(append(b, " (Pearson n(CH3I), methanol = 0)"...))
 		if c.nu.Kind == "water" || c.nu.Kind == "alcohol" {
 			c.add(SN2, w("solvent-mass-action"))
-			c.say("the solvent is the nucleophile and is present in large excess (%+.1f)", w("solvent-mass-action"))
+			b := append(c.text, "the solvent is the nucleophile and is present in large excess ("...)
+			b = appendSigned(b, w("solvent-mass-action"), 1)
+			c.said(append(b, ')'))
 		}
 	},
 }

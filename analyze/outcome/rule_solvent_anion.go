@@ -14,7 +14,11 @@ var solventAnionRule = Rule{
 	Apply: func(c *scoring) {
 		if c.nu != nil && c.nu.Charge < 0 {
 			c.add(SN2, c.md.Anion)
-			c.say("anionic nucleophile in %s: solvent term %+.1f (log10, methanol = 0)", c.md.Name, c.md.Anion)
+			b := append(c.text, "anionic nucleophile in "...)
+			b = append(b, c.md.Name...)
+			b = append(b, ": solvent term "...)
+			b = appendSigned(b, c.md.Anion, 1)
+			c.said(append(b, " (log10, methanol = 0)"...))
 		}
 		// Carbonates and phosphates stay largely undissolved in aprotic
 		// solvents and act at the solid surface: no naked-anion gain

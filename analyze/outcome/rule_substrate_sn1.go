@@ -16,9 +16,18 @@ var substrateSN1Rule = Rule{
 		c.add(SN1, v)
 		c.add(E1, v)
 		if c.cation.shift != "" {
-			c.say("the cation would rearrange by a 1,2-%s shift to a more stable %s cation (ionisation term %+.1f)", c.cation.shift, c.cation.kind, v)
+			b := append(c.text, "the cation would rearrange by a 1,2-"...)
+			b = append(b, c.cation.shift...)
+			b = append(b, " shift to a more stable "...)
+			b = append(b, c.cation.kind...)
+			b = append(b, " cation (ionisation term "...)
+			b = appendSigned(b, v, 1)
+			c.said(append(b, ')'))
 			return
 		}
-		c.say("%s cation: ionisation term %+.1f (log10; tert-butyl = 6)", c.cation.kind, v)
+		b := append(c.text, c.cation.kind...)
+		b = append(b, " cation: ionisation term "...)
+		b = appendSigned(b, v, 1)
+		c.said(append(b, " (log10; tert-butyl = 6)"...))
 	},
 }

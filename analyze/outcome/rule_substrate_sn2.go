@@ -21,7 +21,8 @@ var substrateSN2Rule = Rule{
 		switch {
 		case (s.Degree == perceive.Tertiary && !s.Flags.Has(perceive.AlphaCarbonyl)) || s.Flags.Has(perceive.Bridgehead):
 			c.block(SN2)
-			c.say("%s carbon: the back side is shielded, so SN2 does not happen", s.Degree)
+			b := append(c.text, s.Degree.String()...)
+			c.said(append(b, " carbon: the back side is shielded, so SN2 does not happen"...))
 			return
 		case s.Flags.Has(perceive.Neopentyl):
 			c.say("neopentyl-type carbon: the quaternary neighbour blocks the back side (SN2 about 10^5 times slower than at ethyl)")
@@ -29,20 +30,30 @@ var substrateSN2Rule = Rule{
 			c.say("branching on the neighbouring carbon slows SN2 (isobutyl about 1/30 of ethyl)")
 		}
 		c.add(SN2, v)
-		c.say("%s carbon%s: SN2 class term %+.1f (log10, ethyl = 0)", s.Degree, flagWords(s.Flags), v)
+		b := append(c.text, s.Degree.String()...)
+		b = append(b, " carbon"...)
+		b = appendFlagWords(b, s.Flags)
+		b = append(b, ": SN2 class term "...)
+		b = appendSigned(b, v, 1)
+		c.said(append(b, " (log10, ethyl = 0)"...))
 	},
 }
 
-// flagWords describes the activating features of a site.
-func flagWords(f perceive.Flag) string {
-	out := ""
-	for _, x := range []struct {
-		f perceive.Flag
-		w string
-	}{{perceive.Benzylic, "benzylic"}, {perceive.Allylic, "allylic"}, {perceive.Propargylic, "propargylic"}, {perceive.AlphaCarbonyl, "next to C=O"}, {perceive.AlphaHetero, "next to a heteroatom"}, {perceive.InRing, "in a ring"}} {
+// flagNames are the activating features of a site a reason names, in
+// the order it names them.
+var flagNames = [...]struct {
+	f perceive.Flag
+	w string
+}{{perceive.Benzylic, "benzylic"}, {perceive.Allylic, "allylic"}, {perceive.Propargylic, "propargylic"}, {perceive.AlphaCarbonyl, "next to C=O"}, {perceive.AlphaHetero, "next to a heteroatom"}, {perceive.InRing, "in a ring"}}
+
+// appendFlagWords describes the activating features of a site
+// (", benzylic, in a ring").
+func appendFlagWords(b []byte, f perceive.Flag) []byte {
+	for _, x := range flagNames {
 		if f.Has(x.f) {
-			out += ", " + x.w
+			b = append(b, ", "...)
+			b = append(b, x.w...)
 		}
 	}
-	return out
+	return b
 }

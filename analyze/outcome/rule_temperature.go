@@ -19,6 +19,11 @@ var temperatureRule = Rule{
 		}
 		c.add(E2, w("temperature-elimination")*dt)
 		c.add(E1, w("temperature-elimination")*dt)
-		c.say("at %.0f °C: rates %+.1f, elimination a further %+.2f", c.md.TempC, w("temperature-rate")*dt, w("temperature-elimination")*dt)
+		b := append(c.text, "at "...)
+		b = appendFloat(b, c.md.TempC, 0)
+		b = append(b, " °C: rates "...)
+		b = appendSigned(b, w("temperature-rate")*dt, 1)
+		b = append(b, ", elimination a further "...)
+		c.said(appendSigned(b, w("temperature-elimination")*dt, 2))
 	},
 }

@@ -23,35 +23,68 @@ func sulfonylate(o Outcome, st Step, sub *perceive.Substrate, act activation) Ou
 		return o
 	}
 	o.Site = site.Carbon
-	r := st.Reagents[act.reagent].Mol
-	b := newBuilder(st.Substrate, nil, nil, r, act.sulfonyl)
-	// Drop the chloride (or sulfonate) the reagent loses by rebuilding
-	// without it.
-	m := b.out
-	keep := map[int]bool{}
-	lost := map[int]bool{b.nuMap[act.leaving]: true}
-	for _, x := range leavingSide(r, act.sulfonyl, act.leaving) {
-		if b.nuMap[x] >= 0 {
-			lost[b.nuMap[x]] = true
-		}
-	}
-	for i := range m.Atoms {
-		keep[i] = !lost[i]
-	}
-	out := &molecule.Molecule{}
-	idx := copyInto(out, m, func(i int) bool { return keep[i] }, nil)
-	oAt := idx[b.subMap[site.Leaving.Attach]]
-	out.AddBond(molecule.Bond{A: oAt, B: idx[b.nuMap[act.sulfonyl]], Order: 1})
-	takeProton(out, oAt)
-	p := Product{Mol: out, SMILES: smiles.Canonical(out), Fraction: 1, Role: Major, Pathway: None, Note: "sulfonate ester; the C–O bond is untouched"}
+	k := sulfonateKey{sub: st.Substrate, reagent: st.Reagents[act.reagent].Mol, carbon: site.Carbon, oxygen: site.Leaving.Attach, sulfonyl: act.sulfonyl, leaving: act.leaving}
+	est := st.Cache.sulfonate(k)
+	p := Product{Mol: est.mol, SMILES: est.smiles, Fraction: 1, Role: Major, Pathway: None, Note: "sulfonate ester; the C–O bond is untouched"}
 	o.Products = []Product{p}
 	o.Reasons = append(o.Reasons, Reason{Rule: "sulfonylation", Text: "the sulfonyl chloride esterifies the alcohol oxygen; the C–O bond does not break, so the configuration is retained and the sulfonate is a good leaving group for a later SN2 (with inversion)", Source: "Phillips, H. J. Chem. Soc. 1923, 123, 44; Tipson, R. S. J. Org. Chem. 1944, 9, 235"})
 	if perceive.TetrahedralAt(st.Substrate, site.Carbon) >= 0 {
 		before := st.Cache.label(st.Substrate, site.Carbon)
-		after := label(out, idx[b.subMap[site.Carbon]])
+		after := st.Cache.label(est.mol, est.carbon)
 		o.Stereo = []StereoChange{{Atom: site.Carbon, Before: before, After: after, Change: Retained, LetterChanged: before != after && before != "" && after != ""}}
 	}
 	return o
+}
+
+// sulfonateKey is everything buildSulfonate reads: the substrate and the
+// sulfonylating reagent by identity, the atoms by index.
+type sulfonateKey struct {
+	sub, reagent                      *molecule.Molecule
+	carbon, oxygen, sulfonyl, leaving int
+}
+
+// sulfonateEster is the ester a sulfonylation gives, with its canonical
+// SMILES and the product atom of the substrate's carbon.
+type sulfonateEster struct {
+	mol    *molecule.Molecule
+	smiles string
+	carbon int
+}
+
+// buildSulfonate joins the substrate's oxygen k.oxygen to the reagent's
+// sulfur k.sulfonyl and leaves out the atoms the reagent loses with
+// k.leaving. The ester is built in one pass: the substrate, then the
+// sulfonyl group's component less the atoms that leave (as building it
+// whole and rebuilding without them did, with the same atom order).
+func buildSulfonate(k sulfonateKey) sulfonateEster {
+	r := k.reagent
+	comp, _ := r.Components()
+	want := comp[k.sulfonyl]
+	lost := make([]bool, len(r.Atoms))
+	lost[k.leaving] = true
+	for _, x := range leavingSide(r, k.sulfonyl, k.leaving) {
+		lost[x] = true
+	}
+	take := func(i int) bool { return comp[i] == want && !lost[i] }
+	atoms, bonds := len(k.sub.Atoms), len(k.sub.Bonds)+1 // +1: the O–S bond
+	for i := range r.Atoms {
+		if take(i) {
+			atoms++
+		}
+	}
+	for _, bd := range r.Bonds {
+		if take(bd.A) && take(bd.B) {
+			bonds++
+		}
+	}
+	out := &molecule.Molecule{}
+	out.Grow(atoms, bonds)
+	subMap := copyInto(out, k.sub, func(int) bool { return true }, nil)
+	nuMap := copyInto(out, r, take, map[int]bool{k.sulfonyl: true})
+	oAt := subMap[k.oxygen]
+	out.AddBond(molecule.Bond{A: oAt, B: nuMap[k.sulfonyl], Order: 1})
+	takeProton(out, oAt)
+	return sulfonateEster{mol: out, smiles: smiles.Canonical(out), carbon: subMap[k.carbon]}
 }
 
 // leavingSide lists the atoms of reagent r that go with atom l when the

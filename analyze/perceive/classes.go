@@ -24,12 +24,22 @@ var classEffects = func() map[string]ClassEffect {
 	return out
 }()
 
+// baseKeys are the table keys of the base rows, by Degree ("base:" and
+// the degree's name), made once rather than per look-up.
+var baseKeys = [...]string{"base:methyl", "base:primary", "base:secondary", "base:tertiary"}
+
 // ClassEffects returns the rows that apply to site s, base row first.
 func ClassEffects(s Site) []ClassEffect {
+	return classRows(nil, s)
+}
+
+// classRows appends the rows of ClassEffects to out; ClassRate gives it
+// room on its stack, since it only sums them.
+func classRows(out []ClassEffect, s Site) []ClassEffect {
 	if !s.Flags.Has(Sp3) {
-		return nil
+		return out
 	}
-	out := []ClassEffect{classEffects["base:"+s.Degree.String()]}
+	out = append(out, classEffects[baseKeys[s.Degree]])
 	add := func(k string) { out = append(out, classEffects[k]) }
 	f := s.Flags
 	if f.Has(Neopentyl) {
@@ -76,7 +86,8 @@ func ClassEffects(s Site) []ClassEffect {
 
 // ClassRate sums the class effects of site s.
 func ClassRate(s Site) (ClassEffect, bool) {
-	rows := ClassEffects(s)
+	var buf [16]ClassEffect
+	rows := classRows(buf[:0], s)
 	if len(rows) == 0 {
 		return ClassEffect{}, false
 	}

@@ -2,7 +2,7 @@ package perceive
 
 import (
 	_ "embed"
-	"sort"
+	"slices"
 	"strings"
 
 	"walden/analyze/reagents"
@@ -90,12 +90,23 @@ type Medium struct {
 
 // PerceiveMedium combines the solvents of a step and its temperature.
 func PerceiveMedium(solvents []SolventShare, tempC *float64, reflux bool) Medium {
+	return PerceiveSolvents(solvents).AtTemp(tempC, reflux)
+}
+
+// PerceiveSolvents is PerceiveMedium without the temperature (TempC,
+// NoTemp and Reflux are left zero; AtTemp sets them). A caller that keeps
+// the answer for steps with the same solvents at other temperatures
+// shares its lists, which must then not be changed.
+func PerceiveSolvents(solvents []SolventShare) Medium {
 	var md Medium
 	type part struct {
 		e SolventEffect
 		f float64
 	}
-	var parts []part
+	// A step names few solvents: their working list and names stay on
+	// the stack, and the Medium gets its two lists at their final size.
+	var partBuf [4]part
+	parts := partBuf[:0]
 	for _, s := range solvents {
 		if s.Solvent == nil {
 			continue
@@ -108,7 +119,7 @@ func PerceiveMedium(solvents []SolventShare, tempC *float64, reflux bool) Medium
 	}
 	if len(parts) == 0 {
 		e, _ := LookupSolvent(DefaultSolvent, "")
-		parts = []part{{e, 1}}
+		parts = append(parts, part{e, 1})
 		md.Defaulted = true
 	}
 	total := 0.0
@@ -122,13 +133,26 @@ func PerceiveMedium(solvents []SolventShare, tempC *float64, reflux bool) Medium
 			parts[i].f /= total
 		}
 	}
-	sort.SliceStable(parts, func(i, j int) bool { return parts[i].f > parts[j].f })
-	names := make([]string, len(parts))
+	// Largest share first, stably (as sort.SliceStable with ">" did, but
+	// without its allocations).
+	slices.SortStableFunc(parts, func(a, b part) int {
+		switch {
+		case a.f > b.f:
+			return -1
+		case b.f > a.f:
+			return 1
+		}
+		return 0
+	})
+	var nameBuf [4]string
+	names := nameBuf[:0]
+	md.Parts = make([]SolventEffect, len(parts))
+	md.Shares = make([]float64, len(parts))
 	var co *part
 	for i, p := range parts {
-		md.Parts = append(md.Parts, p.e)
-		md.Shares = append(md.Shares, p.f)
-		names[i] = p.e.Names[0]
+		md.Parts[i] = p.e
+		md.Shares[i] = p.f
+		names = append(names, p.e.Names[0])
 		md.Dielectric += p.f * p.e.Dielectric
 		if p.e.Protic && p.f >= 0.1 {
 			md.Protic = true
@@ -165,16 +189,23 @@ func PerceiveMedium(solvents []SolventShare, tempC *float64, reflux bool) Medium
 			md.Y += p.f * p.e.Y
 		}
 	}
+	return md
+}
+
+// AtTemp returns md at temperature tempC (nil when not given) or at
+// reflux: the temperature fields of PerceiveMedium.
+func (md Medium) AtTemp(tempC *float64, reflux bool) Medium {
 	md.TempC = DefaultTempC
+	md.NoTemp = false
 	switch {
 	case tempC != nil:
 		md.TempC = *tempC
 	case reflux:
 		// The mixture boils near its lowest-boiling main component.
 		bp := 0.0
-		for _, p := range parts {
-			if p.f >= 0.2 && p.e.BoilingC > 0 && (bp == 0 || p.e.BoilingC < bp) {
-				bp = p.e.BoilingC
+		for i := range md.Parts {
+			if e := &md.Parts[i]; md.Shares[i] >= 0.2 && e.BoilingC > 0 && (bp == 0 || e.BoilingC < bp) {
+				bp = e.BoilingC
 			}
 		}
 		if bp > 0 {
