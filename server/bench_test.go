@@ -67,6 +67,13 @@ func waldenBinary(b *testing.B) string {
 // serveProcess starts `walden serve` and returns an initialized client
 // and the process.
 func serveProcess(b *testing.B) (*testClient, *exec.Cmd) {
+	c, cmd, _ := startServe(b)
+	return c, cmd
+}
+
+// startServe is serveProcess, also returning how long the server took
+// from its start to its answer to initialize.
+func startServe(b *testing.B) (*testClient, *exec.Cmd, time.Duration) {
 	args := []string{"serve"}
 	if p := os.Getenv("WALDEN_CPUPROFILE"); p != "" {
 		args = append(args, "--cpuprofile", p)
@@ -81,12 +88,14 @@ func serveProcess(b *testing.B) (*testClient, *exec.Cmd) {
 	if err != nil {
 		b.Fatal(err)
 	}
+	t0 := time.Now()
 	if err := cmd.Start(); err != nil {
 		b.Fatal(err)
 	}
 	c := connect(b, out, in)
 	c.light = true
 	c.initialize(nil)
+	started := time.Since(t0)
 	b.Cleanup(func() {
 		c.call("shutdown", nil, nil)
 		c.notify("exit", nil)
@@ -94,7 +103,7 @@ func serveProcess(b *testing.B) (*testClient, *exec.Cmd) {
 			b.Errorf("walden serve after shutdown and exit: %v", err)
 		}
 	})
-	return c, cmd
+	return c, cmd, started
 }
 
 // percentiles returns p50 and p99 of d in milliseconds.
@@ -203,11 +212,12 @@ func benchServe(b *testing.B, text string, steps []int) {
 	// open: a fresh server each time, so the Engine's cache is cold, as
 	// when an editor starts; at most 10 rounds, since each starts a process.
 	b.Run("open", func(b *testing.B) {
-		var lat []time.Duration
+		var lat, starts []time.Duration
 		var used usage
 		var last *exec.Cmd
 		for i := 0; i < min(b.N, 10); i++ {
-			c, cmd := serveProcess(b)
+			c, cmd, started := startServe(b)
+			starts = append(starts, started)
 			uri := protocol.DocumentURI(fmt.Sprintf("file:///lab/open%d.md", i))
 			u0 := usageOf(cmd.Process.Pid)
 			t0 := time.Now()
@@ -218,6 +228,10 @@ func benchServe(b *testing.B, text string, steps []int) {
 			last = cmd
 		}
 		report(b, "open → first diagnostics (cold)", lat, last, used)
+		// What an editor waits for before it can open anything.
+		p50, _ := percentiles(starts)
+		b.ReportMetric(p50, "start-p50-ms")
+		b.Logf("process start → initialize answered: p50 %.3f ms", p50)
 	})
 	// edit: type one character into a step line, then delete it again on
 	// the next round: each edit changes one step, and no line number.
