@@ -21,7 +21,8 @@ import (
 )
 
 // checkHugeHeap is how much of `walden check`'s heap growth is advised
-// for huge pages: what 100,000 steps need.
+// for huge pages: what 100,000 steps need; a quarter is faulted in at the
+// start.
 const checkHugeHeap = 256 << 20
 
 func init() {
@@ -102,7 +103,7 @@ func runCheck(args []string, _ io.Reader, stdout, stderr io.Writer) int {
 		// A folder of long pages grows the heap by hundreds of megabytes;
 		// see package hugeheap. Only a real process: a test's heap is
 		// long grown.
-		hugeheap.Prepare(checkHugeHeap)
+		hugeheap.Prepare(checkHugeHeap, checkHugeHeap/4)
 	}
 	if fl.NArg() == 0 {
 		fl.Usage()

@@ -79,8 +79,8 @@ func runServe(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		// Opening a long page grows the heap by tens of megabytes at
 		// once; see package hugeheap for why that growth should come in
 		// huge pages. Only a real process: a test's heap is long grown.
-		advised, err := hugeheap.Prepare(serveHugeHeap)
-		log.Debug("heap prepared for huge pages", "bytes", advised, "err", err)
+		advised, populated, err := hugeheap.Prepare(serveHugeHeap, serveHugeHeap/2)
+		log.Debug("heap prepared for huge pages", "advised", advised, "populated", populated, "err", err)
 		os.Stdout = os.Stderr
 		defer func() { os.Stdout = stdout.(*os.File) }()
 	}
@@ -117,7 +117,8 @@ const serveMemoryLimit = 88 << 20
 const serveGCPercent = 200
 
 // serveHugeHeap is how much of the server's heap growth is advised for
-// huge pages: what opening a 5,000-line page and editing it needs.
+// huge pages: what opening a 5,000-line page and editing it needs. Half
+// of it, what the opening needs, is faulted in at the start.
 const serveHugeHeap = 64 << 20
 
 // stdio joins the process's standard input and output into the one

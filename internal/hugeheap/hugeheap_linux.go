@@ -11,30 +11,39 @@ import (
 // in the advised range gets huge pages, a part of one does not.
 const hugePage = 2 << 20
 
-// madvHugepage is MADV_HUGEPAGE, missing from package syscall.
-const madvHugepage = 14
+// The advice values missing from package syscall.
+const (
+	madvHugepage      = 14
+	madvPopulateWrite = 23
+)
 
-func prepare(n int) (int, error) {
-	if n < hugePage {
-		return 0, nil
+func prepare(advise, populate int) (advised, populated int, err error) {
+	if advise < hugePage {
+		return 0, 0, nil
 	}
 	// A fresh large object is a new mapping the runtime has not touched:
 	// it knows fresh memory is zero and does not clear it.
-	b := make([]byte, n)
+	b := make([]byte, advise)
 	p := uintptr(unsafe.Pointer(unsafe.SliceData(b)))
 	beg := (p + hugePage - 1) &^ (hugePage - 1)
-	end := (p + uintptr(n)) &^ (hugePage - 1)
-	var err error
+	end := (p + uintptr(advise)) &^ (hugePage - 1)
 	if beg < end {
-		if _, _, e := syscall.Syscall(syscall.SYS_MADVISE, beg, end-beg, madvHugepage); e != 0 {
-			err = e
+		if err = madvise(beg, end-beg, madvHugepage); err == nil {
+			advised = int(end - beg)
+			if n := min(uintptr(populate), end-beg) &^ (hugePage - 1); n > 0 && madvise(beg, n, madvPopulateWrite) == nil {
+				populated = int(n)
+			}
 		}
 	}
 	runtime.KeepAlive(b)
 	b = nil
 	runtime.GC() // return the range to the page allocator now
-	if err != nil || beg >= end {
-		return 0, err
+	return advised, populated, err
+}
+
+func madvise(addr, n uintptr, advice int) error {
+	if _, _, e := syscall.Syscall(syscall.SYS_MADVISE, addr, n, uintptr(advice)); e != 0 {
+		return e
 	}
-	return int(end - beg), nil
+	return nil
 }

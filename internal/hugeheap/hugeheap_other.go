@@ -2,4 +2,4 @@
 
 package hugeheap
 
-func prepare(int) (int, error) { return 0, nil }
+func prepare(int, int) (int, int, error) { return 0, 0, nil }
