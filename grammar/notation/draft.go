@@ -55,30 +55,39 @@ type draftQuantity struct {
 	r0, r1   int32 // a ratio's parts: parser.nums[r0:r1]
 }
 
-// slab hands out zeroed drafts of one type from chunks that are kept
-// between lines: a pointer to a draft stays valid until reset, and its id
-// finds it again.
+// slab hands out drafts of one type from chunks that are kept between
+// lines: a pointer to a draft stays valid until reset, and its id finds
+// it again. The drafts it hands out are not cleared: newTerm and its
+// kin overwrite them whole, with a composite literal of their concrete
+// type, which the compiler clears inline (a generic clear costs a call).
 type slab[T any] struct {
 	chunks [][]T
-	c, n   int // the chunk in use, and the drafts taken from it
+	cur    []T   // chunks[c]
+	c, n   int32 // the chunk in use, and the drafts taken from it
 }
 
 const slabChunk = 32
 
-// get returns a zero draft and its id.
+// get returns a draft, holding whatever it last held, and its id.
 func (s *slab[T]) get() (*T, int32) {
-	if s.c < len(s.chunks) && s.n == len(s.chunks[s.c]) {
-		s.c, s.n = s.c+1, 0
+	if int(s.n) == len(s.cur) {
+		s.grow()
 	}
-	if s.c == len(s.chunks) {
+	e := &s.cur[s.n]
+	id := s.c*slabChunk + s.n
+	s.n++
+	return e, id
+}
+
+// grow moves to the next chunk, making it if it is new.
+func (s *slab[T]) grow() {
+	if len(s.cur) > 0 {
+		s.c++
+	}
+	if int(s.c) == len(s.chunks) {
 		s.chunks = append(s.chunks, make([]T, slabChunk))
 	}
-	e := &s.chunks[s.c][s.n]
-	id := int32(s.c*slabChunk + s.n)
-	s.n++
-	var zero T
-	*e = zero
-	return e, id
+	s.cur, s.n = s.chunks[s.c], 0
 }
 
 // at returns the draft with the given id.
@@ -89,24 +98,29 @@ func (s *slab[T]) at(id int32) *T {
 }
 
 // reset makes every draft free for the next line.
-func (s *slab[T]) reset() { s.c, s.n = 0, 0 }
+func (s *slab[T]) reset() {
+	s.c, s.n = 0, 0
+	if len(s.chunks) > 0 {
+		s.cur = s.chunks[0]
+	}
+}
 
 // newTerm, newSubstance and newQuantity return a zero draft.
 func (p *parser) newTerm() *draftTerm {
 	t, id := p.termDrafts.get()
-	t.id = id
+	*t = draftTerm{id: id}
 	return t
 }
 
 func (p *parser) newSubstance() *draftSubstance {
 	s, id := p.subDrafts.get()
-	s.id = id
+	*s = draftSubstance{id: id}
 	return s
 }
 
 func (p *parser) newQuantity() *draftQuantity {
 	q, id := p.qtyDrafts.get()
-	q.id = id
+	*q = draftQuantity{id: id}
 	return q
 }
 

@@ -15,8 +15,7 @@ func (p *parser) emit(t *Tree) int32 {
 	// The nodes are appended to a slice on the stack and stored back
 	// once: storing a slice into the Tree on every append would pass the
 	// garbage collector's write barrier each time.
-	e := &emitter{p: p, base: t.base, nodes: t.nodes}
-	defer func() { t.nodes = e.nodes }()
+	e := emitter{p: p, base: t.base, nodes: t.nodes}
 	si := e.add(nStep, st.Span)
 	var flags uint8
 	if st.hasMark {
@@ -46,6 +45,7 @@ func (p *parser) emit(t *Tree) int32 {
 	n := &e.nodes[si]
 	n.flags = flags
 	n.a, n.b, n.c = int32(st.nR), int32(st.nC), int32(st.nP)
+	t.nodes = e.nodes
 	return si
 }
 
@@ -87,8 +87,10 @@ func (e *emitter) term(ti int32, d *draftTerm) {
 	for _, id := range qids {
 		e.add(nQuantity, e.p.qtyDrafts.at(id).Span)
 	}
-	for _, sp := range e.p.notes[d.n0:d.n1] {
-		e.add(nNote, sp)
+	if d.n1 > d.n0 { // notes are rare: the common case skips the slicing
+		for _, sp := range e.p.notes[d.n0:d.n1] {
+			e.add(nNote, sp)
+		}
 	}
 	if s != nil {
 		e.substance(first, s)
@@ -107,11 +109,13 @@ func (e *emitter) term(ti int32, d *draftTerm) {
 // and its ratio.
 func (e *emitter) substance(si int32, d *draftSubstance) {
 	parts := e.next()
-	for _, id := range e.p.slist[d.p0:d.p1] {
-		part := e.p.subDrafts.at(id)
-		k := e.add(nSubstance, part.Span)
-		e.nodes[k].sub = uint8(part.Kind)
-		e.nodes[k].flags = plainFlag(part)
+	if d.p1 > d.p0 { // only mixtures have parts
+		for _, id := range e.p.slist[d.p0:d.p1] {
+			part := e.p.subDrafts.at(id)
+			k := e.add(nSubstance, part.Span)
+			e.nodes[k].sub = uint8(part.Kind)
+			e.nodes[k].flags = plainFlag(part)
+		}
 	}
 	var ratio int32
 	if r := e.p.qty(d.ratio); r != nil {

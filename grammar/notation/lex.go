@@ -21,7 +21,8 @@ const (
 // bytes: tokens are appended and copied for every word of a line.
 type tok struct {
 	kind       tokKind
-	closed     bool // for tGroup: the ')' was found
+	closed     bool  // for tGroup: the ')' was found
+	marks      uint8 // for tWord: the byteClass bits of its bytes, or-ed
 	start, end int
 }
 
@@ -92,17 +93,41 @@ func (p *parser) commaSeparates(i, end int) bool {
 
 func isUpperByte(c byte) bool { return 'A' <= c && c <= 'Z' }
 
-// wordByte marks the bytes that continue a word whatever follows them:
-// all but the ASCII bytes at which a word may end and the first bytes of
-// the no-break spaces and arrows (0xC2, 0xE2), which are checked in full.
-// A continuation byte of UTF-8 is never one of these, so a word is
-// scanned byte by byte without decoding.
-var wordByte = func() (t [256]bool) {
-	for c := range t {
-		t[c] = true
-	}
+// Byte classes. A word is scanned byte by byte with one table lookup,
+// without decoding UTF-8: most bytes have class 0 and simply continue
+// it. The others are the bytes at which a word may end (checked in
+// full by breakAt) and the bytes later readings look for, which the
+// lexer notes in tok.marks so that those readings skip the words that
+// hold none (nearly all). A continuation byte of UTF-8 is none of these.
+const (
+	// cStop: ' ', '\t', ',', '-' and the first bytes of the no-break
+	// spaces and arrows (0xC2, 0xE2), at which a word may end.
+	cStop uint8 = 1 << iota
+	// cSlash: '/', which may join the parts of a mixture (anyJoins).
+	cSlash
+	// cDash: 0xE2, the first byte of the en and em dashes, which may
+	// join the parts of a mixture (anyJoins).
+	cDash
+	// cCheck: '>' and '+', which wordChecks reports inside a word.
+	cCheck
+)
+
+var byteClass = func() (t [256]uint8) {
 	for _, c := range []byte{' ', '\t', ',', '-', 0xC2, 0xE2} {
-		t[c] = false
+		t[c] |= cStop
+	}
+	t['/'] |= cSlash
+	t[0xE2] |= cDash
+	t['>'] |= cCheck
+	t['+'] |= cCheck
+	return t
+}()
+
+// startsToken marks the first bytes of spaces and of the tokens other
+// than words, which lex checks in full before it starts a word.
+var startsToken = func() (t [256]bool) {
+	for _, c := range []byte{' ', '\t', 0xC2, 0xE2, '-', '+', ',', '('} {
+		t[c] = true
 	}
 	return t
 }()
@@ -136,61 +161,99 @@ func (p *parser) matchParen(i, end int) int {
 // separator only at the start of a word; ',' and arrows never occur in
 // SMILES and separate anywhere (see commaSeparates for names).
 func (p *parser) lex(toks []tok, i, end int) []tok {
-	for i < end {
-		if n := p.spaceAt(i, end); n > 0 {
-			i += n
-			continue
-		}
-		c := p.src[i]
-		if c == '-' || c == 0xE2 { // the first bytes of the arrows
-			if n := p.arrowAt(i, end); n > 0 {
-				toks = addTok(toks, tArrow, i, i+n)
+	// src ends at end, which spares the loops bounds checks.
+	src := p.src[:end]
+	for i < len(src) {
+		c := src[i]
+		// A letter, digit or bracket starts a word: only the bytes of
+		// startsToken need the checks below.
+		if startsToken[c] {
+			if c == ' ' || c == '\t' {
+				i++
+				continue
+			}
+			if n := p.spaceAt(i, end); n > 0 {
 				i += n
 				continue
 			}
-		}
-		switch c {
-		case '+':
-			toks = addTok(toks, tPlus, i, i+1)
-			i++
-			continue
-		case ',':
-			toks = addTok(toks, tComma, i, i+1)
-			i++
-			continue
-		case '(':
-			// "(S)-4-phenylbutan-2-ol" is a name that starts with a
-			// parenthesis; "(1.5 eq)" stands apart and is a group.
-			close := p.matchParen(i, end)
-			if close < 0 {
-				toks = addTok(toks, tGroup, i, end)
-				i = end
-				continue
+			if c == '-' || c == 0xE2 { // the first bytes of the arrows
+				if n := p.arrowAt(i, end); n > 0 {
+					toks = addTok(toks, tArrow, i, i+n)
+					i += n
+					continue
+				}
 			}
-			if p.breakAt(close+1, end) {
-				toks = addTok(toks, tGroup, i, close+1)
-				toks[len(toks)-1].closed = true
-				i = close + 1
+			switch c {
+			case '+':
+				toks = addTok(toks, tPlus, i, i+1)
+				i++
 				continue
+			case ',':
+				toks = addTok(toks, tComma, i, i+1)
+				i++
+				continue
+			case '(':
+				// "(S)-4-phenylbutan-2-ol" is a name that starts with a
+				// parenthesis; "(1.5 eq)" stands apart and is a group.
+				close := p.matchParen(i, end)
+				if close < 0 {
+					toks = addTok(toks, tGroup, i, end)
+					i = end
+					continue
+				}
+				if p.breakAt(close+1, end) {
+					toks = addTok(toks, tGroup, i, close+1)
+					toks[len(toks)-1].closed = true
+					i = close + 1
+					continue
+				}
 			}
 		}
 		// Most bytes continue a word by the table alone, and the commonest
-		// others, a space that ends it or a hyphen that is no arrow, are
-		// decided here rather than by breakAt. src ends at end, which
-		// spares the loop a bounds check.
-		src := p.src[:end]
+		// others, a space that ends it, a hyphen that is no arrow or a
+		// comma, are decided here rather than by breakAt.
 		j := i
+		var marks uint8
+		// Four bytes at a time while none needs a look.
+		for len(src)-j >= 4 {
+			w := src[j : j+4]
+			if byteClass[w[0]]|byteClass[w[1]]|byteClass[w[2]]|byteClass[w[3]] != 0 {
+				break
+			}
+			j += 4
+		}
+	scan:
 		for j < len(src) {
-			c := src[j]
-			if c == ' ' || c == '\t' {
-				break
+			cl := byteClass[src[j]]
+			if cl == 0 {
+				j++
+				continue
 			}
-			if !wordByte[c] && (c != '-' || j+1 < len(src) && src[j+1] == '>') && p.breakAt(j, end) {
-				break
+			if cl&cStop != 0 {
+				c := src[j]
+				if c == ' ' || c == '\t' {
+					break
+				}
+				switch c {
+				case '-':
+					if j+1 < len(src) && src[j+1] == '>' {
+						break scan // an arrow
+					}
+				case ',':
+					if p.commaSeparates(j, end) {
+						break scan
+					}
+				default: // 0xC2, 0xE2: a space, an arrow or a letter
+					if p.breakAt(j, end) {
+						break scan
+					}
+				}
 			}
+			marks |= cl
 			j++
 		}
 		toks = addTok(toks, tWord, i, j)
+		toks[len(toks)-1].marks = marks
 		i = j
 	}
 	return toks

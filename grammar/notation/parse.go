@@ -3,10 +3,13 @@ package notation
 import (
 	"encoding/binary"
 	"fmt"
+	"math/bits"
 	"runtime"
+	"slices"
 	"strings"
 	"sync"
 	"unicode/utf8"
+	"unsafe"
 
 	"walden/grammar/source"
 )
@@ -41,6 +44,10 @@ type parser struct {
 	nodes      []node        // Parse's nodes before they are copied into the Tree
 	tokBuf     [32]tok
 	groupBuf   [16]tok
+	// The lists terms builds, kept here rather than on its stack, where
+	// they would be cleared for every line.
+	segBuf    [16]segment
+	placedBuf [16]placed
 }
 
 // parsers keeps parser state, drafts and token buffers included, between
@@ -63,24 +70,46 @@ func (p *parser) release() {
 // the line. It does not judge chemistry: whether a word is a known name or
 // valid SMILES, or a term a sensible solvent, is left to analyze/.
 //
-// The Step's Tree holds a copy of the line and the line's nodes: a clean
-// line costs three allocations.
+// The Step's Tree holds a copy of the line and the line's nodes, in one
+// block: a clean line costs two allocations, the Tree and the block.
 func Parse(line []byte, base source.Pos) (Step, source.ErrorList) {
 	p := parsers.Get().(*parser)
 	defer p.release()
-	t := &Tree{base: base}
-	if len(line) <= MaxLineLength {
-		t.src = string(line) // a longer line is refused unread
+	p.src, p.base = line, base
+	if len(line) <= MaxLineLength { // a longer line is refused unread
+		// While the line is read its texts are views of line itself:
+		// nothing the parser keeps or returns refers to p.str (messages
+		// are formatted copies), and the Tree gets its own copy below.
+		p.str = unsafe.String(unsafe.SliceData(line), len(line))
 	}
-	p.src, p.str, p.base = line, t.src, base
 	errs := p.parse()
-	// make followed at once by copy from a variable allocates without
-	// zeroing, and exactly what the line needs.
 	from := p.emitScratch(base)
-	nodes := make([]node, len(from))
-	copy(nodes, from)
-	t.nodes = nodes
+	t := &Tree{base: base}
+	t.nodes, t.src = nodesAndText(from, p.str)
+	p.str = ""
 	return Step{t, 0}, errs
+}
+
+// nodesAndText copies nodes and text into one new block of memory, which
+// holds no pointer, and returns the copies: the nodes first, then the
+// text's bytes. One allocation rather than two saves the runtime's work
+// for the second, and the block is at least one node long, so it is
+// never a tiny object and is aligned for nodes.
+func nodesAndText(nodes []node, text string) ([]node, string) {
+	const size = int(unsafe.Sizeof(node{}))
+	n := len(nodes)
+	block := make([]byte, n*size+len(text))
+	var out []node
+	if n > 0 {
+		out = unsafe.Slice((*node)(unsafe.Pointer(&block[0])), n)
+		copy(out, nodes)
+	}
+	if text == "" {
+		return out, ""
+	}
+	tail := block[n*size:]
+	copy(tail, text)
+	return out, unsafe.String(&tail[0], len(tail))
 }
 
 // ParseLines parses the step lines of one host text, given by their
@@ -116,8 +145,11 @@ func ParseLines(text []byte, spans []source.Span) ([]Step, []source.ErrorList) {
 	return steps, errs
 }
 
-// parallelLines is the fewest lines per goroutine in ParseLines.
-const parallelLines = 1000
+// parallelLines is the fewest lines per goroutine in ParseLines: about
+// a quarter of a millisecond of reading, against the few microseconds a
+// goroutine costs to start and join, so that a page of a few hundred
+// lines already opens on both cores of a small machine.
+const parallelLines = 256
 
 // parseRun parses the lines at spans into steps and errs with one
 // parser, as ParseLines describes.
@@ -219,7 +251,9 @@ func (p *parser) parse() source.ErrorList {
 		p.errs = p.errs[:maxErrors]
 		p.errorf(0, len(line), "too-many-errors", "more than %d errors on this line; only the first are shown", maxErrors)
 	}
-	p.errs.Sort()
+	if len(p.errs) > 1 {
+		p.errs.Sort()
+	}
 	return p.errs
 }
 
@@ -255,10 +289,15 @@ func (p *parser) skipSpace(i, end int) int {
 // editor shows faithfully; the bytes stay in the words that hold them.
 func (p *parser) checkBytes() {
 	for i := 0; i < len(p.src); {
-		// Eight printable ASCII bytes at a time: the common case.
-		if i+8 <= len(p.src) && printable8(binary.LittleEndian.Uint64(p.src[i:])) {
-			i += 8
-			continue
+		// Eight printable ASCII bytes at a time: the common case. Else
+		// the printable bytes before the first other one are skipped.
+		if i+8 <= len(p.src) {
+			m := unprintable8(binary.LittleEndian.Uint64(p.src[i:]))
+			if m == 0 {
+				i += 8
+				continue
+			}
+			i += bits.TrailingZeros64(m) / 8
 		}
 		c := p.src[i]
 		if c < utf8.RuneSelf {
@@ -266,6 +305,17 @@ func (p *parser) checkBytes() {
 				p.errorf(i, i+1, "control-character", "control character U+%04X found in a step line; delete it", c)
 			}
 			i++
+			continue
+		}
+		// Two- and three-byte characters that cannot be overlong or
+		// surrogates need no decoding: '°', 'µ', '–', '→' and their kin.
+		if i+1 < len(p.src) && 0xC2 <= c && c <= 0xDF && p.src[i+1]&0xC0 == 0x80 {
+			i += 2
+			continue
+		}
+		if i+2 < len(p.src) && (0xE1 <= c && c <= 0xEC || c == 0xEE || c == 0xEF) &&
+			p.src[i+1]&0xC0 == 0x80 && p.src[i+2]&0xC0 == 0x80 {
+			i += 3
 			continue
 		}
 		r, size := utf8.DecodeRune(p.src[i:])
@@ -282,12 +332,15 @@ func (p *parser) checkBytes() {
 	}
 }
 
-// printable8 reports whether the eight bytes of x are all in 0x20–0x7E.
-func printable8(x uint64) bool {
+// unprintable8 returns a mask whose lowest set bit is the high bit of
+// the first of the eight bytes of x (little-endian) outside 0x20–0x7E,
+// or 0 when all are inside. Bits above the lowest may be set wrongly
+// (a borrow carries into the next byte), never the lowest.
+func unprintable8(x uint64) uint64 {
 	const ones, highs = 0x0101010101010101, 0x8080808080808080
 	below := (x - 0x20*ones) &^ x & highs                      // some byte < 0x20
 	del := ((x ^ 0x7F*ones) - ones) &^ (x ^ 0x7F*ones) & highs // some byte == 0x7F
-	return (x|below|del)&highs == 0
+	return (x | below | del) & highs
 }
 
 // commentStart returns where "//" begins a comment, or -1. The marker
@@ -421,6 +474,13 @@ type segment struct {
 	from, to int
 }
 
+// placed is a term placed in its part of the step, by its draft's id
+// (no pointer, as for segments).
+type placed struct {
+	ph phase
+	id int32
+}
+
 // phase is the part of the line a term belongs to.
 type phase int
 
@@ -435,8 +495,7 @@ const (
 func (p *parser) terms(st *draftStep, toks []tok) {
 	// The words between two separators are contiguous in toks, so each
 	// segment is a range of them and costs nothing.
-	var segBuf [16]segment
-	segs := append(segBuf[:0], segment{})
+	segs := append(p.segBuf[:0], segment{})
 	for k := range toks {
 		switch toks[k].kind {
 		case tPlus, tComma, tArrow:
@@ -453,14 +512,7 @@ func (p *parser) terms(st *draftStep, toks []tok) {
 		}
 		return
 	}
-	// A term placed in its part of the step, by its draft's id (no
-	// pointer, as for segments).
-	type placed struct {
-		ph phase
-		id int32
-	}
-	var allBuf [16]placed
-	all := allBuf[:0]
+	all := p.placedBuf[:0]
 	ph := inReactants
 	for k := range segs {
 		seg := &segs[k] // not a copy: segments are read for every term
@@ -517,7 +569,8 @@ func (p *parser) terms(st *draftStep, toks []tok) {
 	for _, pt := range all {
 		count[pt.ph]++
 	}
-	p.order = append(p.order[:0], make([]int32, len(all))...)
+	// Every place of p.order is written below: it is grown, not cleared.
+	p.order = slices.Grow(p.order[:0], len(all))[:len(all)]
 	next := [3]int{0, count[0], count[0] + count[1]}
 	for _, pt := range all {
 		p.order[next[pt.ph]] = pt.id

@@ -4,6 +4,7 @@ import (
 	_ "embed"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 )
 
 // The unit and word tables are data, not code: units.tsv lists every unit
@@ -26,6 +27,13 @@ var (
 	// one ("CCBr", "EtOH") fail these before a lookup.
 	quantityWordLens  [64]bool
 	quantityWordPairs [1 << 16 / 64]uint64
+
+	// quantityStart marks the first bytes mayStartQuantity may accept:
+	// digits, signs, the point and non-ASCII bytes, the first letters of
+	// the words of words.tsv in either case, and 'a', 'f' for "at" and
+	// "for". Most names and SMILES start otherwise ('C', 'N', '[') and
+	// fail at this one lookup.
+	quantityStart [256]bool
 
 	// unitNames and wordNames are the canonical units and words, indexed
 	// by unit.id: a Tree keeps the index, not the string.
@@ -85,6 +93,11 @@ func init() {
 			quantityWordPairs[pair/64] |= 1 << (pair % 64)
 			maxWordsInQuantityWord = max(maxWordsInQuantityWord, strings.Count(w, " ")+1)
 		}
+	}
+	for c := range quantityStart {
+		b := byte(c)
+		quantityStart[c] = isDigitByte(b) || b == '-' || b == '+' || b == '.' || b >= utf8.RuneSelf ||
+			mayStartWord(b) || lowerByte(b) == 'a' || lowerByte(b) == 'f'
 	}
 }
 
@@ -209,10 +222,14 @@ func lowerASCII(b []byte, s string) []byte {
 	return b
 }
 
+// mayStartWord reports whether a word of words.tsv may start with c,
+// regardless of ASCII case.
+func mayStartWord(c byte) bool { return quantityWordStarts[c|0x20] || quantityWordStarts[c] }
+
 // quantityWord looks up the words ws, joined by one space, in words.tsv,
 // without regard to ASCII case.
 func (p *parser) quantityWord(ws []tok) (unit, bool) {
-	if c := p.src[ws[0].start]; !quantityWordStarts[c|0x20] && !quantityWordStarts[c] {
+	if !mayStartWord(p.src[ws[0].start]) {
 		return unit{}, false
 	}
 	n := len(ws) - 1 // the spaces joining the words

@@ -33,7 +33,9 @@ func (p *parser) term(toks []tok, sep Sep) *draftTerm {
 		var errs source.ErrorList
 		if tk.kind == tWord && p.src[tk.start] != '@' {
 			if q, n, errs = p.quantity(toks, k, true); q == nil {
-				p.wordChecks(tk)
+				if tk.marks&(cCheck|cStop) != 0 { // a '>', '+' or '-' to look at
+					p.wordChecks(tk)
+				}
 				if run < 0 {
 					run = k
 				}
@@ -91,6 +93,9 @@ func (p *parser) wordChecks(tk tok) {
 	if len(w) == 1 && w[0] == '-' {
 		p.errorf(tk.start, tk.end, "half-arrow", "'-' stands alone; write '->' before the expected product, or delete it")
 		return
+	}
+	if tk.marks&cCheck == 0 {
+		return // no '>' or '+' to report
 	}
 	depth := 0
 	for i, c := range w {
@@ -165,7 +170,7 @@ func (p *parser) mayStartQuantity(t tok) bool {
 // caller keeps it; nil when toks[k] does not start a quantity. When
 // ranges is false it does not look for "to" (the upper end of a range).
 func (p *parser) quantity(toks []tok, k int, ranges bool) (*draftQuantity, int, source.ErrorList) {
-	if k >= len(toks) || toks[k].kind != tWord || !p.mayStartQuantity(toks[k]) {
+	if k >= len(toks) || toks[k].kind != tWord || !quantityStart[p.src[toks[k].start]] || !p.mayStartQuantity(toks[k]) {
 		return nil, 0, nil
 	}
 	words := 0
@@ -214,8 +219,9 @@ func (p *parser) quantity(toks []tok, k int, ranges bool) (*draftQuantity, int, 
 // says that ws[0] is the last word of its term, where a number alone is
 // a quantity missing its unit rather than the start of a name ("4 Å MS").
 func (p *parser) single(ws []tok, last bool) (*draftQuantity, int) {
-	// Words standing for quantities, longest first.
-	for n := min(maxWordsInQuantityWord, len(ws)); n >= 1; n-- {
+	// Words standing for quantities, longest first. quantityWord's quick
+	// test of the first byte is made once here, for numbers mostly.
+	for n := min(maxWordsInQuantityWord, len(ws)); n >= 1 && mayStartWord(p.src[ws[0].start]); n-- {
 		if u, ok := p.quantityWord(ws[:n]); ok {
 			q := p.newQuantity()
 			q.Span, q.Kind, q.word = p.span(ws[0].start, ws[n-1].end), u.kind, u.id
@@ -438,6 +444,9 @@ func (p *parser) substance(run []tok) *draftSubstance {
 // anyJoins reports whether a word of run may join a mixture.
 func (p *parser) anyJoins(run []tok) bool {
 	for _, tk := range run {
+		if tk.marks&(cSlash|cDash) == 0 {
+			continue // no '/' and no dash: most words
+		}
 		w := p.str[tk.start:tk.end]
 		if strings.IndexByte(w, '/') >= 0 || strings.IndexByte(w, 0xE2) >= 0 && (strings.Contains(w, "–") || strings.Contains(w, "—")) {
 			return true
