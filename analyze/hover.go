@@ -2,6 +2,7 @@ package analyze
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 
 	"walden/analyze/caution"
@@ -22,24 +23,14 @@ func (r *Report) Hover(pos source.Pos) (markdown string, span source.Span, ok bo
 	}
 	res := ps.res
 	rel := pos - ps.span.Start
-	var parts []partHover
 	if res.in != nil {
-		parts = substanceHovers(res.in)
 		chem := res.chem
 		if chem == nil {
 			chem = &prediction{reacting: -1}
 		}
-		parts = append(parts, atomHovers(res.in, chem)...)
-	}
-	best := -1
-	for i, p := range parts {
-		if p.span.Contains(rel) && (best < 0 || p.span.Len() < parts[best].span.Len()) {
-			best = i
+		if md, sp, ok := partHover(res.in, chem, rel); ok {
+			return md, sp.Shift(ps.span.Start), true
 		}
-	}
-	if best >= 0 {
-		p := parts[best]
-		return p.markdown, p.span.Shift(ps.span.Start), true
 	}
 	md := res.hover
 	if res.chem != nil {
@@ -134,78 +125,87 @@ func prefixed(p, s string) string {
 	return p + s
 }
 
-// substanceHovers describes each reagent and solvent of a step.
-func substanceHovers(in *stepInput) []partHover {
-	var out []partHover
-	all := append([]*substance{in.substrate}, in.reagents...)
-	all = append(all, in.solvents...)
-	for _, s := range all {
-		if s == nil || s.span.End <= s.span.Start {
-			continue
-		}
-		var md string
-		switch {
-		case s.reagent != nil || s.solvent != nil:
-			md = reagents.Doc(reagents.Entry{Reagent: s.reagent, Solvent: s.solvent})
-		case s.ref != "" && s.from != nil:
-			md = fmt.Sprintf("**@%s**: the product of step %s, `%s`", s.ref, s.ref, s.from.smiles)
-			if s.from.written {
-				md += " (as written after '->')"
+// partHover describes the part of a step's line at rel, if hover has
+// something to say of it: an atom of a substance written as SMILES (its
+// CIP label, and on the substrate its role in the step and what happens
+// to its configuration), else the reagent, solvent or referenced product
+// there. Only the part under the cursor is described: a line's CIP
+// labels and reagent pages cost more than the rest of a hover.
+func partHover(in *stepInput, pred *prediction, rel source.Pos) (string, source.Span, bool) {
+	var s *substance
+	for _, list := range [][]*substance{{in.substrate}, in.reagents, in.solvents, in.products} {
+		for _, x := range list {
+			if x != nil && x.span.End > x.span.Start && x.span.Contains(rel) {
+				s = x
 			}
-			if len(s.from.history) > 0 {
-				md += "\n\nConfiguration through the plan: " + strings.Join(s.from.history, " → ")
-			}
-		default:
-			continue
 		}
-		out = append(out, partHover{span: s.span, markdown: md})
 	}
-	return out
+	if s == nil {
+		return "", source.Span{}, false
+	}
+	isSolvent, isProduct := slices.Contains(in.solvents, s), slices.Contains(in.products, s)
+	whole := !isProduct && (s.reagent != nil || s.solvent != nil || s.ref != "" && s.from != nil)
+	if !isSolvent {
+		// An atom is described before its substance, unless it is the
+		// whole of it.
+		if md, sp, ok := atomHover(s, s == in.substrate, pred, rel); ok && (!whole || sp.Len() < s.span.Len()) {
+			return md, sp, true
+		}
+	}
+	switch {
+	case !whole:
+		return "", source.Span{}, false
+	case s.reagent != nil || s.solvent != nil:
+		return reagents.Doc(reagents.Entry{Reagent: s.reagent, Solvent: s.solvent}), s.span, true
+	}
+	md := fmt.Sprintf("**@%s**: the product of step %s, `%s`", s.ref, s.ref, s.from.smiles)
+	if s.from.written {
+		md += " (as written after '->')"
+	}
+	if len(s.from.history) > 0 {
+		md += "\n\nConfiguration through the plan: " + strings.Join(s.from.history, " → ")
+	}
+	return md, s.span, true
 }
 
-// atomHovers describes the atoms of the substances written as SMILES in
-// the line: the CIP label of each stereocentre, and for the substrate
-// each atom's role in the step (reacting carbon, leaving group) and what
-// happens to its configuration.
-func atomHovers(in *stepInput, pred *prediction) []partHover {
-	var out []partHover
-	all := append([]*substance{in.substrate}, in.reagents...)
-	all = append(all, in.products...)
-	for _, s := range all {
-		if s == nil || !s.asSMILES || s.mol == nil {
-			continue
-		}
-		isSubstrate := s == in.substrate
-		labels := cipLabels(s.mol)
-		for i, a := range s.mol.Atoms {
-			sp, ok := smilesAtomSpan(s, i)
-			if !ok {
-				continue
-			}
-			role := ""
-			if isSubstrate {
-				role = pred.role(i)
-			}
-			l := labels[i]
-			if role == "" && l == "" {
-				continue
-			}
-			md := fmt.Sprintf("**atom %d** (%s)", i+1, a.Element.Symbol())
-			if l != "" {
-				md += fmt.Sprintf(" — CIP **%s**", l)
-			}
-			if role != "" {
-				md += "\n\n" + role
-			}
-			if isSubstrate {
-				for _, c := range pred.stereo {
-					if c.atom == i {
-						md += fmt.Sprintf("\n\nIn this step: %s → %s (%s)", orDash(c.before), orDash(c.after), c.outcome)
-					}
-				}
-			}
-			out = append(out, partHover{span: sp, markdown: md})
+// atomHover describes the atom of s, written as SMILES, at rel: its CIP
+// label, and for the substrate its role in the step and what happens to
+// its configuration. ok is false for an atom with nothing to say.
+func atomHover(s *substance, isSubstrate bool, pred *prediction, rel source.Pos) (string, source.Span, bool) {
+	if !s.asSMILES || s.mol == nil {
+		return "", source.Span{}, false
+	}
+	i := -1
+	var sp source.Span
+	for k := range s.mol.Atoms {
+		if at, ok := smilesAtomSpan(s, k); ok && at.Contains(rel) && (i < 0 || at.Len() < sp.Len()) {
+			i, sp = k, at
 		}
 	}
-	return out
+	if i < 0 {
+		return "", source.Span{}, false
+	}
+	role := ""
+	if isSubstrate {
+		role = pred.role(i)
+	}
+	l := cipLabels(s.mol)[i]
+	if role == "" && l == "" {
+		return "", source.Span{}, false
+	}
+	md := fmt.Sprintf("**atom %d** (%s)", i+1, s.mol.Atoms[i].Element.Symbol())
+	if l != "" {
+		md += fmt.Sprintf(" — CIP **%s**", l)
+	}
+	if role != "" {
+		md += "\n\n" + role
+	}
+	if isSubstrate {
+		for _, c := range pred.stereo {
+			if c.atom == i {
+				md += fmt.Sprintf("\n\nIn this step: %s → %s (%s)", orDash(c.before), orDash(c.after), c.outcome)
+			}
+		}
+	}
+	return md, sp, true
 }

@@ -18,7 +18,6 @@ type resolver struct {
 	refs   map[string]*handOn // the labels visible to this step, with their products
 	diags  []Diagnostic
 	tokens []Token
-	parts  []partHover
 	slab   []substance // room for the line's substances, made by build
 }
 

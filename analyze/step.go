@@ -41,12 +41,6 @@ type refUse struct {
 	span source.Span
 }
 
-// partHover is hover text for one part of a line.
-type partHover struct {
-	span     source.Span
-	markdown string
-}
-
 // slot is a place in a line where a name or a label can be completed.
 type slot struct {
 	span      source.Span
