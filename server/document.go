@@ -71,21 +71,15 @@ func (d *document) edited(version int32, changes []contentChange) (*document, []
 	m := d.mapper
 	var warnings []error
 	for i, c := range changes {
-		var text []byte
 		if c.Range == nil {
-			text = []byte(c.Text)
-		} else {
-			sp, err := span(m, *c.Range)
-			if err != nil {
-				warnings = append(warnings, fmt.Errorf("change %d of version %d: %w; applied at the nearest place in the text", i+1, version, err))
-			}
-			old := m.Text()
-			text = make([]byte, 0, len(old)-sp.Len()+len(c.Text))
-			text = append(text, old[:sp.Start]...)
-			text = append(text, c.Text...)
-			text = append(text, old[sp.End:]...)
+			m = source.NewMapper([]byte(c.Text))
+			continue
 		}
-		m = source.NewMapper(text)
+		sp, err := span(m, *c.Range)
+		if err != nil {
+			warnings = append(warnings, fmt.Errorf("change %d of version %d: %w; applied at the nearest place in the text", i+1, version, err))
+		}
+		m = m.Replaced(sp, c.Text)
 	}
 	return &document{uri: d.uri, version: version, kind: d.kind, mapper: m}, warnings
 }

@@ -37,33 +37,73 @@ var ErrOutOfRange = errors.New("position out of range")
 // must not change it afterwards.
 func NewMapper(text []byte) *Mapper {
 	m := &Mapper{text: text, starts: make([]int, 1, 1+len(text)/32)}
-	// Find line feeds with the vectorised IndexByte, then lone carriage
-	// returns inside each line; a text of Windows or Unix line ends is
-	// scanned at memory speed.
-	pos := 0
-	for pos < len(text) {
+	m.starts, m.ascii = scanLines(text, 0, len(text)+1, m.starts, make([]bool, 0, cap(m.starts)))
+	return m
+}
+
+// Replaced returns the Mapper of the text with the bytes of sp replaced
+// by repl: a new text, whose lines are read again only around the change
+// (an edit in a long document costs a copy, not a scan). A span outside
+// the text is clamped to it.
+func (m *Mapper) Replaced(sp Span, repl string) *Mapper {
+	start := min(max(int(sp.Start), 0), len(m.text))
+	end := min(max(int(sp.End), start), len(m.text))
+	text := make([]byte, 0, len(m.text)-(end-start)+len(repl))
+	text = append(text, m.text[:start]...)
+	text = append(text, repl...)
+	text = append(text, m.text[end:]...)
+	delta := len(repl) - (end - start)
+
+	// Lines are read again from the start of the line before the change,
+	// whose line end the change cannot reach, up to the start of the
+	// second line after it, whose line end lies wholly after the change:
+	// a CR or LF at either side of the change may join or split line ends.
+	a := max(m.lineOf(start)-1, 0)
+	b := m.lineOf(end) + 2
+	stop := len(text) + 1
+	if b < len(m.starts) {
+		stop = m.starts[b] + delta
+	}
+	n := &Mapper{text: text}
+	n.starts = make([]int, a+1, len(m.starts)+len(repl)/32+4)
+	copy(n.starts, m.starts[:a+1])
+	n.ascii = make([]bool, a, cap(n.starts))
+	copy(n.ascii, m.ascii[:a])
+	n.starts, n.ascii = scanLines(text, m.starts[a], stop, n.starts, n.ascii)
+	if b < len(m.starts) {
+		for _, s := range m.starts[b:] {
+			n.starts = append(n.starts, s+delta)
+		}
+		n.ascii = append(n.ascii, m.ascii[b:]...)
+	}
+	return n
+}
+
+// scanLines reads the lines of text from the line start pos on: it
+// appends the ASCII flag of each line it reads to ascii and the start of
+// each next line to starts, until the next line would start at stop or
+// the text ends.
+//
+// Line feeds are found with the vectorised IndexByte, then lone carriage
+// returns inside each line; a text of Windows or Unix line ends is
+// scanned at memory speed.
+func scanLines(text []byte, pos, stop int, starts []int, ascii []bool) ([]int, []bool) {
+	for {
 		lineEnd, next := len(text), -1
 		if nl := bytes.IndexByte(text[pos:], '\n'); nl >= 0 {
 			lineEnd, next = pos+nl, pos+nl+1
 		}
-		for {
-			cr := bytes.IndexByte(text[pos:lineEnd], '\r')
-			if cr < 0 || pos+cr+1 == lineEnd && next >= 0 {
-				break // no CR, or the CR of a CRLF
-			}
-			m.ascii = append(m.ascii, isASCII(text[pos:pos+cr]))
-			pos += cr + 1
-			m.starts = append(m.starts, pos)
+		// A CR ends the line unless it is the CR of a CRLF.
+		if cr := bytes.IndexByte(text[pos:lineEnd], '\r'); cr >= 0 && (pos+cr+1 != lineEnd || next < 0) {
+			lineEnd, next = pos+cr, pos+cr+1
 		}
-		if next < 0 {
-			break
+		ascii = append(ascii, isASCII(text[pos:lineEnd]))
+		if next < 0 || next >= stop {
+			return starts, ascii
 		}
-		m.ascii = append(m.ascii, isASCII(text[pos:lineEnd]))
-		m.starts = append(m.starts, next)
+		starts = append(starts, next)
 		pos = next
 	}
-	m.ascii = append(m.ascii, isASCII(text[min(pos, len(text)):]))
-	return m
 }
 
 // isASCII reports whether b holds only ASCII bytes, eight at a time.
