@@ -149,24 +149,30 @@ func BenchmarkOpenTypical(b *testing.B) {
 }
 
 // BenchmarkEditTypical re-reads the typical page (benchpage.Typical) as
-// the language server does after a keystroke in one step line
-// (AnalyzeLines): one line is new, every other line is looked up.
+// the language server does after each keystroke (AnalyzeLines): a
+// character typed into a step line, then deleted again, as in the
+// server's edit benchmark.
 func BenchmarkEditTypical(b *testing.B) {
 	text, steps := benchpage.Typical(5_000)
 	lines := strings.SplitAfter(text, "\n")
 	e := NewEngine(Config{})
-	e.AnalyzeLines(context.Background(), []Source{{Name: "typical.md", Kind: MarkdownPage, Text: []byte(text)}})
-	pages := make([][]byte, 64)
-	for i := range pages {
-		edited := slices.Clone(lines)
+	original := []byte(text)
+	e.AnalyzeLines(context.Background(), []Source{{Name: "typical.md", Kind: MarkdownPage, Text: original}})
+	edited := make([][]byte, 64)
+	for i := range edited {
+		changed := slices.Clone(lines)
 		l := steps[(i*37)%len(steps)]
-		edited[l] = edited[l][:4] + "C" + edited[l][4:]
-		pages[i] = []byte(strings.Join(edited, ""))
+		changed[l] = changed[l][:4] + "C" + changed[l][4:]
+		edited[i] = []byte(strings.Join(changed, ""))
 	}
 	b.ReportAllocs()
 	b.ResetTimer()
 	defer benchcpu.Measure(b)()
 	for i := range b.N {
-		e.AnalyzeLines(context.Background(), []Source{{Name: "typical.md", Kind: MarkdownPage, Text: pages[i%len(pages)]}})
+		page := original
+		if i%2 == 0 {
+			page = edited[(i/2)%len(edited)]
+		}
+		e.AnalyzeLines(context.Background(), []Source{{Name: "typical.md", Kind: MarkdownPage, Text: page}})
 	}
 }

@@ -39,6 +39,8 @@ type Engine struct {
 	lastGen map[string]uint64
 	sweepAt int
 
+	lastFound map[string]lastFound // by source name, for the next edit (find.go)
+
 	analysed atomic.Int64 // steps analysed (cache misses), for tests and figures
 	diagHint atomic.Int64 // diagnostics in the last one-source Report, to size the next
 	parsed   atomic.Int64 // lines parsed (texts not seen before), for tests
@@ -51,6 +53,7 @@ type lineEntry struct {
 	step    notation.Step
 	errs    source.ErrorList
 	refs    []string // labels referred to, in order
+	label   string   // the label the line defines; "" for none
 	results results
 	used    uint64 // the last Analyze generation that used it
 
@@ -107,7 +110,7 @@ const (
 // NewEngine returns an Engine using cfg.
 func NewEngine(cfg Config) *Engine {
 	e := &Engine{cfg: cfg, dict: newDictionary(cfg), disabled: map[string]bool{}, memo: newMemo(), lines: map[string]*lineEntry{},
-		lastGen: map[string]uint64{}, sweepAt: sweepMin}
+		lastGen: map[string]uint64{}, lastFound: map[string]lastFound{}, sweepAt: sweepMin}
 	for _, c := range cfg.Disabled {
 		e.disabled[strings.TrimSpace(c)] = true
 	}
@@ -166,26 +169,31 @@ func (e *Engine) analyze(ctx context.Context, srcs []Source, lazy bool) ([]*Repo
 		if ctx.Err() != nil {
 			return reps, ctx.Err()
 		}
-		found[i], finds[i] = findLines(s)
+		found[i], finds[i] = e.findLines(s)
 		ents[i] = make([]*lineEntry, len(found[i]))
 	}
 	gen := e.entries(srcs, found, ents)
 	e.prewarm(ctx, ents)
-	nLabels := 0
+	nLabels, anyRefs := 0, false
 	for i := range srcs {
 		for _, ent := range ents[i] {
-			if _, ok := ent.step.Label(); ok {
+			if ent.label != "" {
 				nLabels++
 			}
+			anyRefs = anyRefs || len(ent.refs) > 0
 		}
 	}
 	// Every label of every source, so that a reference to a label defined
-	// further down is told apart from one defined nowhere.
-	later := make(map[string]bool, nLabels)
-	for i := range srcs {
-		for _, ent := range ents[i] {
-			if l, ok := ent.step.Label(); ok {
-				later[l.Name] = true
+	// further down is told apart from one defined nowhere; only a page
+	// that refers to labels needs it.
+	var later map[string]bool
+	if anyRefs {
+		later = make(map[string]bool, nLabels)
+		for i := range srcs {
+			for _, ent := range ents[i] {
+				if ent.label != "" {
+					later[ent.label] = true
+				}
 			}
 		}
 	}
@@ -427,6 +435,9 @@ func (e *Engine) labelDiags(res *stepResult, base source.Pos, defined map[string
 func newLineEntry(text []byte, gen uint64) *lineEntry {
 	step, errs := notation.Parse(text, 0)
 	ent := &lineEntry{text: string(text), step: step, errs: errs, used: gen}
+	if l, ok := step.Label(); ok {
+		ent.label = l.Name
+	}
 	for _, r := range references(step) {
 		ent.refs = append(ent.refs, r.name)
 	}

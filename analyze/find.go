@@ -9,21 +9,51 @@ import (
 // for a line it has not seen before.
 type foundLine = notebook.Line
 
+// lastFound is what the Engine found in a source on its last call: a
+// text edited inside one step line is found from it (notebook.Edited)
+// instead of being read again.
+type lastFound struct {
+	kind SourceKind
+	text []byte
+	page *notebook.Page
+}
+
+// maxLastFound is how many sources' last pages the Engine keeps: the
+// documents open in an editor, with room to spare.
+const maxLastFound = 64
+
 // findLines finds the step lines of a source, with the finder's errors
 // (unterminated fences, binary text) as diagnostics.
-func findLines(s Source) ([]foundLine, []Diagnostic) {
-	f := notebook.Markdown
-	if s.Kind == PlanFile {
-		f = notebook.Plan
+func (e *Engine) findLines(s Source) ([]foundLine, []Diagnostic) {
+	e.mu.Lock()
+	last, seen := e.lastFound[s.Name]
+	e.mu.Unlock()
+	var pg *notebook.Page
+	// A text changed in place in the same array cannot be compared with
+	// what it was.
+	if seen && last.kind == s.Kind && (len(s.Text) == 0 || len(last.text) == 0 || &s.Text[0] != &last.text[0]) {
+		pg, _ = notebook.Edited(last.page, last.text, s.Text)
 	}
-	pg := notebook.Find(f, s.Text)
+	if pg == nil {
+		f := notebook.Markdown
+		if s.Kind == PlanFile {
+			f = notebook.Plan
+		}
+		pg = notebook.Find(f, s.Text)
+	}
+	e.mu.Lock()
+	if len(e.lastFound) >= maxLastFound {
+		clear(e.lastFound)
+	}
+	e.lastFound[s.Name] = lastFound{kind: s.Kind, text: s.Text, page: pg}
+	e.mu.Unlock()
 	var diags []Diagnostic
-	for _, e := range pg.Errors {
-		code := e.Code
+	for _, er := range pg.Errors {
+		code := er.Code
 		if code == "" {
 			code = CodeSyntax
 		}
-		diags = append(diags, Diagnostic{Code: code, Severity: Error, Message: e.Msg, Span: e.Span})
+		diags = append(diags, Diagnostic{Code: code, Severity: Error, Message: er.Msg, Span: er.Span})
 	}
 	return pg.Lines, diags
 }

@@ -51,7 +51,9 @@ type Edit struct {
 // Source is one host text handed to the Engine: a Markdown page, a plan
 // file, or the text of one Markdown cell of a notebook. Steps in a later
 // source may refer by label to steps in an earlier one (cells of one
-// notebook, in order).
+// notebook, in order). The Engine keeps Text until it next analyses a
+// source of the same Name, to compare the two: it must not change
+// meanwhile.
 type Source struct {
 	Name string // file path or URI, used in messages only
 	Kind SourceKind

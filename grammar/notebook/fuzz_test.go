@@ -2,6 +2,7 @@ package notebook
 
 import (
 	"bytes"
+	"reflect"
 	"testing"
 
 	"walden/grammar/source"
@@ -86,6 +87,37 @@ func FuzzNotebook(f *testing.F) {
 		for _, c := range nb.Cells {
 			if c.Page != nil {
 				checkPage(t, c.Text, c.Page)
+			}
+		}
+	})
+}
+
+// FuzzEdited checks that a page derived by Edited after a change equals
+// the page found afresh in the changed text, for Markdown and plan
+// texts; where Edited declines, nothing is checked.
+func FuzzEdited(f *testing.F) {
+	page := "# p\n\n- item\n  ```reaction\n  s1: CCBr + NaN3, DMF  \n  // note\n  CC(C)Br + KOtBu\n  ```\n\n```reaction\n/x + y\n`a` + b\n```\ntext\r\nCCO + NaH\r\n"
+	for _, s := range []struct {
+		text, repl string
+		at, cut    uint16
+	}{
+		{page, "C", 30, 0}, {page, "", 28, 3}, {page, "/", 116, 0}, {page, "x", 117, 0}, {page, "  ", 43, 0},
+		{page, "K", 47, 2}, {page, "", 40, 14}, {page, "q", 150, 0}, {"```reaction\nA + B\n```", "", 13, 2},
+		{"```reaction\nA + B  \n", "C", 17, 0}, {"A + B\nC", "D", 1, 0}, {"\ufeffA + B", "x", 4, 0},
+	} {
+		f.Add([]byte(s.text), []byte(s.repl), s.at, s.cut)
+	}
+	f.Fuzz(func(t *testing.T, old, repl []byte, at, cut uint16) {
+		start := int(at) % (len(old) + 1)
+		end := min(start+int(cut), len(old))
+		text := append(append(append([]byte{}, old[:start]...), repl...), old[end:]...)
+		for _, find := range []func([]byte) *Page{FindMarkdown, FindPlan} {
+			got, ok := Edited(find(old), old, text)
+			if !ok {
+				continue
+			}
+			if want := find(text); !reflect.DeepEqual(got, want) {
+				t.Fatalf("%q with %d-%d replaced by %q:\ngot  %+v\nwant %+v", old, start, end, repl, got, want)
 			}
 		}
 	})
