@@ -1,6 +1,7 @@
 package analyze
 
 import (
+	"bytes"
 	"cmp"
 	"context"
 	"fmt"
@@ -12,6 +13,7 @@ import (
 	"sync/atomic"
 
 	"walden/grammar/notation"
+	"walden/grammar/notebook"
 	"walden/grammar/source"
 )
 
@@ -63,6 +65,7 @@ type lineEntry struct {
 	lastIns []*handOn
 	lastRes *stepResult
 	queued  bool // taken by a prewarm worker
+	evicted bool // swept from the cache
 }
 
 // results are a line's results by the key of the products it refers to
@@ -165,14 +168,22 @@ func (e *Engine) analyze(ctx context.Context, srcs []Source, lazy bool) ([]*Repo
 	found := make([][]foundLine, len(srcs))
 	finds := make([][]Diagnostic, len(srcs))
 	ents := make([][]*lineEntry, len(srcs))
+	prev := make([]lastFound, len(srcs))
+	pages := make([]*notebook.Page, len(srcs))
 	for i, s := range srcs {
 		if ctx.Err() != nil {
 			return reps, ctx.Err()
 		}
-		found[i], finds[i] = e.findLines(s)
+		pages[i], finds[i], prev[i] = e.findLines(s)
+		found[i] = pages[i].Lines
 		ents[i] = make([]*lineEntry, len(found[i]))
 	}
-	gen := e.entries(srcs, found, ents)
+	gen := e.entries(srcs, found, prev, ents)
+	e.mu.Lock()
+	for i, s := range srcs {
+		e.keepEntries(s.Name, pages[i], ents[i])
+	}
+	e.mu.Unlock()
 	e.prewarm(ctx, ents)
 	nLabels, anyRefs := 0, false
 	for i := range srcs {
@@ -342,7 +353,7 @@ const prewarmMin = 32
 // entries fills ents with the cached parse of every found line, parsing
 // only the lines not seen before, and returns the generation of this
 // call, for eviction.
-func (e *Engine) entries(srcs []Source, found [][]foundLine, ents [][]*lineEntry) uint64 {
+func (e *Engine) entries(srcs []Source, found [][]foundLine, prev []lastFound, ents [][]*lineEntry) uint64 {
 	type miss struct{ src, line int }
 	var misses []miss
 	e.mu.Lock()
@@ -352,9 +363,24 @@ func (e *Engine) entries(srcs []Source, found [][]foundLine, ents [][]*lineEntry
 		e.lastGen[s.Name] = gen
 	}
 	for i, s := range srcs {
+		// After an edit most lines are where they were, with the same
+		// text: comparing the bytes with the last call's line costs less
+		// than looking the text up.
+		var was []foundLine
+		if prev[i].page != nil && len(prev[i].ents) == len(found[i]) && len(prev[i].page.Lines) == len(found[i]) {
+			was = prev[i].page.Lines
+		}
 		for n, l := range found[i] {
+			text := s.Text[l.Span.Start:l.Span.End]
+			if was != nil {
+				if ent := prev[i].ents[n]; !ent.evicted && bytes.Equal(text, prev[i].text[was[n].Span.Start:was[n].Span.End]) {
+					ent.used = gen
+					ents[i][n] = ent
+					continue
+				}
+			}
 			// Indexing by string(bytes) does not copy the bytes.
-			if ent, ok := e.lines[string(s.Text[l.Span.Start:l.Span.End])]; ok {
+			if ent, ok := e.lines[string(text)]; ok {
 				ent.used = gen
 				ents[i][n] = ent
 			} else {
@@ -528,6 +554,7 @@ func (e *Engine) evictLocked(gen uint64) {
 	}
 	for k, v := range e.lines {
 		if v.used+keepGens < gen && !live[v.used] {
+			v.evicted = true // an entry a source's last page holds is not used again
 			delete(e.lines, k)
 		}
 	}

@@ -16,15 +16,18 @@ type lastFound struct {
 	kind SourceKind
 	text []byte
 	page *notebook.Page
+	ents []*lineEntry // the entry of each of page.Lines, once looked up
 }
 
 // maxLastFound is how many sources' last pages the Engine keeps: the
 // documents open in an editor, with room to spare.
 const maxLastFound = 64
 
-// findLines finds the step lines of a source, with the finder's errors
-// (unterminated fences, binary text) as diagnostics.
-func (e *Engine) findLines(s Source) ([]foundLine, []Diagnostic) {
+// findLines finds the step lines of a source (the page's Lines), with
+// the finder's errors (unterminated fences, binary text) as diagnostics,
+// and returns what was found in the source on the Engine's last call, if
+// anything.
+func (e *Engine) findLines(s Source) (*notebook.Page, []Diagnostic, lastFound) {
 	e.mu.Lock()
 	last, seen := e.lastFound[s.Name]
 	e.mu.Unlock()
@@ -55,5 +58,17 @@ func (e *Engine) findLines(s Source) ([]foundLine, []Diagnostic) {
 		}
 		diags = append(diags, Diagnostic{Code: code, Severity: Error, Message: er.Msg, Span: er.Span})
 	}
-	return pg.Lines, diags
+	if !seen || last.kind != s.Kind {
+		last = lastFound{}
+	}
+	return pg, diags, last
+}
+
+// keepEntries records ents, the entries of the lines of pg, as found in
+// source name, unless another call has found the source since.
+func (e *Engine) keepEntries(name string, pg *notebook.Page, ents []*lineEntry) {
+	if lf, ok := e.lastFound[name]; ok && lf.page == pg {
+		lf.ents = ents
+		e.lastFound[name] = lf
+	}
 }
