@@ -81,6 +81,7 @@ func runServe(args []string, stdin io.Reader, stdout, stderr io.Writer) int {
 		// huge pages. Only a real process: a test's heap is long grown.
 		advised, populated, err := hugeheap.Prepare(serveHugeHeap, serveHugeHeap/2)
 		log.Debug("heap prepared for huge pages", "advised", advised, "populated", populated, "err", err)
+		widenPipe(stdout.(*os.File))
 		os.Stdout = os.Stderr
 		defer func() { os.Stdout = stdout.(*os.File) }()
 	}
