@@ -1,7 +1,6 @@
 package analyze
 
 import (
-	"bytes"
 	"cmp"
 	"context"
 	"fmt"
@@ -363,21 +362,21 @@ func (e *Engine) entries(srcs []Source, found [][]foundLine, prev []lastFound, e
 		e.lastGen[s.Name] = gen
 	}
 	for i, s := range srcs {
-		// After an edit most lines are where they were, with the same
-		// text: comparing the bytes with the last call's line costs less
-		// than looking the text up.
+		// After an edit most lines have the text of the same line on the
+		// last call, counted from the top before the change and from the
+		// bottom after it: comparing the bytes costs less than looking
+		// the text up.
 		var was []foundLine
-		if prev[i].page != nil && len(prev[i].ents) == len(found[i]) && len(prev[i].page.Lines) == len(found[i]) {
+		if prev[i].page != nil && len(prev[i].ents) == len(prev[i].page.Lines) {
 			was = prev[i].page.Lines
 		}
+		shift := len(found[i]) - len(was)
 		for n, l := range found[i] {
 			text := s.Text[l.Span.Start:l.Span.End]
-			if was != nil {
-				if ent := prev[i].ents[n]; !ent.evicted && bytes.Equal(text, prev[i].text[was[n].Span.Start:was[n].Span.End]) {
-					ent.used = gen
-					ents[i][n] = ent
-					continue
-				}
+			if ent := prev[i].same(was, text, n, n-shift); ent != nil {
+				ent.used = gen
+				ents[i][n] = ent
+				continue
 			}
 			// Indexing by string(bytes) does not copy the bytes.
 			if ent, ok := e.lines[string(text)]; ok {

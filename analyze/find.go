@@ -1,6 +1,8 @@
 package analyze
 
 import (
+	"bytes"
+
 	"walden/grammar/notebook"
 )
 
@@ -17,6 +19,20 @@ type lastFound struct {
 	text []byte
 	page *notebook.Page
 	ents []*lineEntry // the entry of each of page.Lines, once looked up
+}
+
+// same returns the entry of line a or b of the last call (of was, its
+// lines) if that line's text is text, and the entry is still cached.
+func (lf *lastFound) same(was []foundLine, text []byte, a, b int) *lineEntry {
+	for _, k := range [2]int{a, b} {
+		if k < 0 || k >= len(was) {
+			continue
+		}
+		if ent := lf.ents[k]; !ent.evicted && bytes.Equal(text, lf.text[was[k].Span.Start:was[k].Span.End]) {
+			return ent
+		}
+	}
+	return nil
 }
 
 // maxLastFound is how many sources' last pages the Engine keeps: the

@@ -1,7 +1,7 @@
 package notebook
 
 import (
-	enc "encoding/binary"
+	"bytes"
 	"slices"
 	"sort"
 
@@ -100,13 +100,14 @@ func plainBytes(b []byte) bool {
 	return true
 }
 
-// commonPrefix returns how many bytes a and b share at their start,
-// comparing eight at a time.
+// commonPrefix returns how many bytes a and b share at their start. Whole
+// blocks are compared first, with the vectorised bytes.Equal: a page is
+// compared on every keystroke.
 func commonPrefix(a, b []byte) int {
 	n := min(len(a), len(b))
 	i := 0
-	for i+8 <= n && enc.LittleEndian.Uint64(a[i:]) == enc.LittleEndian.Uint64(b[i:]) {
-		i += 8
+	for i+compareBlock <= n && bytes.Equal(a[i:i+compareBlock], b[i:i+compareBlock]) {
+		i += compareBlock
 	}
 	for i < n && a[i] == b[i] {
 		i++
@@ -118,11 +119,15 @@ func commonPrefix(a, b []byte) int {
 func commonSuffix(a, b []byte) int {
 	n := min(len(a), len(b))
 	i := 0
-	for i+8 <= n && enc.LittleEndian.Uint64(a[len(a)-i-8:]) == enc.LittleEndian.Uint64(b[len(b)-i-8:]) {
-		i += 8
+	for i+compareBlock <= n && bytes.Equal(a[len(a)-i-compareBlock:len(a)-i], b[len(b)-i-compareBlock:len(b)-i]) {
+		i += compareBlock
 	}
 	for i < n && a[len(a)-1-i] == b[len(b)-1-i] {
 		i++
 	}
 	return i
 }
+
+// compareBlock is how many bytes commonPrefix and commonSuffix compare at
+// once.
+const compareBlock = 256
