@@ -63,8 +63,9 @@ type lineEntry struct {
 	// pointers, and no key needs building.
 	lastIns []*handOn
 	lastRes *stepResult
-	queued  bool // taken by a prewarm worker
-	evicted bool // swept from the cache
+	lastOwn []Diagnostic // lastRes.diags, read with the entry
+	queued  bool         // taken by a prewarm worker
+	evicted bool         // swept from the cache
 }
 
 // results are a line's results by the key of the products it refers to
@@ -240,14 +241,14 @@ func (e *Engine) analyze(ctx context.Context, srcs []Source, lazy bool) ([]*Repo
 				}
 			}
 			res := e.resultLocked(ent, ins)
-			ps := placedStep{span: l.Span, res: res, ent: ent, nLabels: int32(len(order))}
+			ps := placedStep{span: l.Span, res: res, own: ent.lastOwn, ent: ent, nLabels: int32(len(order))}
 			rep.steps = append(rep.steps, ps)
 			from := len(rep.Diagnostics)
 			res.place(rep, ps, &a, e.disabled)
-			if len(res.refs) > 0 {
+			if len(ent.refs) > 0 && len(res.refs) > 0 {
 				rep.Diagnostics = append(rep.Diagnostics, e.labelDiags(res, l.Span.Start, defined, later)...)
 			}
-			if res.label != "" {
+			if ent.label != "" && res.label != "" {
 				if prev, dup := defined[res.label]; dup {
 					rep.Diagnostics = append(rep.Diagnostics, Diagnostic{Code: CodeLabelDuplicate, Severity: Error,
 						Message: fmt.Sprintf("label '%s' is already defined%s; later steps use the first one", res.label, where(prev, i, srcs)),
@@ -506,7 +507,7 @@ func (e *Engine) resultLocked(ent *lineEntry, ins []*handOn) *stepResult {
 		}
 	}
 	ent.lastIns = append(ent.lastIns[:0:0], ins...)
-	ent.lastRes = res
+	ent.lastRes, ent.lastOwn = res, res.diags
 	return res
 }
 

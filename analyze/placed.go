@@ -10,11 +10,12 @@ import (
 type placedStep struct {
 	span    source.Span // the line in the host
 	res     *stepResult
-	ent     *lineEntry // the line's text and parse
-	nLabels int32      // how many labels (Report.labels) are visible to the step
+	own     []Diagnostic // res.diags, kept here so that AppendLines reads no result
+	ent     *lineEntry   // the line's text and parse
+	nLabels int32        // how many labels (Report.labels) are visible to the step
 
 	// Label findings, in host positions (AnalyzeLines only): few lines
-	// have any, and a page's steps are copied on every edit.
+	// have any, and a page's steps are made anew on every edit.
 	extra *[]Diagnostic
 }
 
