@@ -1,6 +1,7 @@
 package outcome
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"slices"
@@ -165,17 +166,8 @@ func usableSites(out []perceive.Site, sub *perceive.Substrate, act activation) [
 		}
 		out = kept
 	}
-	// A stable sort by rank, best first, without sort.SliceStable's
-	// reflection and closure allocations.
-	slices.SortStableFunc(out, func(a, b perceive.Site) int {
-		switch {
-		case a.Rank > b.Rank:
-			return -1
-		case b.Rank > a.Rank:
-			return 1
-		}
-		return 0
-	})
+	// Best first, stably.
+	slices.SortStableFunc(out, func(a, b perceive.Site) int { return cmp.Compare(b.Rank, a.Rank) })
 	return out
 }
 

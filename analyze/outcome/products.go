@@ -1,6 +1,7 @@
 package outcome
 
 import (
+	"cmp"
 	"math"
 	"slices"
 
@@ -46,16 +47,8 @@ func products(o *Outcome, st Step, c *scoring) {
 			out = append(out, p)
 		}
 	}
-	// Largest share first, stably, as sort.SliceStable with ">" did.
-	slices.SortStableFunc(out, func(a, b Product) int {
-		switch {
-		case a.Fraction > b.Fraction:
-			return -1
-		case b.Fraction > a.Fraction:
-			return 1
-		}
-		return 0
-	})
+	// Largest share first, stably.
+	slices.SortStableFunc(out, func(a, b Product) int { return cmp.Compare(b.Fraction, a.Fraction) })
 	for i := range out {
 		out[i].Role = Minor
 		if i == 0 {

@@ -1,6 +1,7 @@
 package perceive
 
 import (
+	"cmp"
 	_ "embed"
 	"slices"
 	"strings"
@@ -133,17 +134,8 @@ func PerceiveSolvents(solvents []SolventShare) Medium {
 			parts[i].f /= total
 		}
 	}
-	// Largest share first, stably (as sort.SliceStable with ">" did, but
-	// without its allocations).
-	slices.SortStableFunc(parts, func(a, b part) int {
-		switch {
-		case a.f > b.f:
-			return -1
-		case b.f > a.f:
-			return 1
-		}
-		return 0
-	})
+	// Largest share first, stably.
+	slices.SortStableFunc(parts, func(a, b part) int { return cmp.Compare(b.f, a.f) })
 	var nameBuf [4]string
 	names := nameBuf[:0]
 	md.Parts = make([]SolventEffect, len(parts))
