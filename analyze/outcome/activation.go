@@ -191,15 +191,7 @@ func halideNucleophile(el molecule.Element, reactant int) (*perceive.Nucleophile
 	m := &molecule.Molecule{}
 	m.Grow(1, 0) // one atom: not the default room for a larger molecule
 	m.AddAtom(molecule.Atom{Element: el, Charge: -1, Bracket: true})
-	var kind perceive.NucKind
-	switch el {
-	case molecule.Cl:
-		kind = "chloride"
-	case molecule.Br:
-		kind = "bromide"
-	case molecule.I:
-		kind = "iodide"
-	}
+	kind := perceive.HalideKind(el)
 	d, _ := perceive.NucleophileData(kind)
 	return &perceive.Nucleophile{Candidate: perceive.Candidate{Reactant: reactant, Atom: 0, Kind: kind, Charge: -1, Data: d}, By: -1}, m
 }

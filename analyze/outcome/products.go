@@ -191,19 +191,10 @@ func substitute(sub *molecule.Molecule, c *scoring, ionised bool) *Product {
 	return p
 }
 
-// degenerate: the nucleophile is the same halide as the leaving group.
+// degenerate: the nucleophile is the same halide as the leaving group
+// (a halide leaving group is its halogen atom, Leaving.Attach).
 func degenerate(c *scoring) bool {
-	var k perceive.NucKind
-	switch c.site.Leaving.Kind {
-	case perceive.Iodide:
-		k = "iodide"
-	case perceive.Bromide:
-		k = "bromide"
-	case perceive.Chloride:
-		k = "chloride"
-	case perceive.Fluoride:
-		k = "fluoride"
-	}
+	k := perceive.HalideKind(c.sub.Mol.Atoms[c.site.Leaving.Attach].Element)
 	return k != "" && c.nu != nil && c.nu.Kind == k
 }
 

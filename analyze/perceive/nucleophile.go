@@ -389,10 +389,10 @@ func intrinsicSites(m *molecule.Molecule, r *Rings) []Candidate {
 	return out
 }
 
-func anionKind(m *molecule.Molecule, i int) NucKind {
-	a := m.Atoms[i]
-	deg := m.Degree(i)
-	switch a.Element {
+// HalideKind is the nucleophile kind of the halide ion of el; "" when el
+// is not a halogen.
+func HalideKind(el molecule.Element) NucKind {
+	switch el {
 	case molecule.I:
 		return "iodide"
 	case molecule.Br:
@@ -401,6 +401,17 @@ func anionKind(m *molecule.Molecule, i int) NucKind {
 		return "chloride"
 	case molecule.F:
 		return "fluoride"
+	}
+	return ""
+}
+
+func anionKind(m *molecule.Molecule, i int) NucKind {
+	a := m.Atoms[i]
+	deg := m.Degree(i)
+	if k := HalideKind(a.Element); k != "" {
+		return k
+	}
+	switch a.Element {
 	case molecule.H:
 		return "hydride"
 	case molecule.O:

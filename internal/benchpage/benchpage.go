@@ -16,32 +16,27 @@ func Worst(n int) (text string, stepLines []int) {
 	substrates := []string{"CCBr", "CC(C)Br", "C[C@@H](Br)CC", "CC(C)(C)Cl", "BrCc1ccccc1", "C[C@H](OS(C)(=O)=O)CCc1ccccc1", "ClCC=C", "CCCCI"}
 	reagents := []string{"NaN3", "NaCN", "NaI", "KOtBu", "NaOEt", "KSAc", "NaOMe", "DBU"}
 	solvents := []string{"DMF", "acetone", "EtOH", "DMSO", "THF", "MeOH", "MeCN", "toluene"}
-	var b strings.Builder
-	line := 0
-	add := func(s string) {
-		b.WriteString(s)
-		b.WriteByte('\n')
-		line++
-	}
+	var pg page
+	add := pg.add
 	add("# Route scouting, notebook 7")
-	for k := 0; line < n; k++ {
+	for k := 0; pg.lines < n; k++ {
 		add("")
 		add(fmt.Sprintf("## Entry %d", k+1))
 		add("The substrate was dried over sieves; the reagent was weighed under nitrogen and added in portions.")
 		add("")
 		add("```reaction")
-		for j := 0; j < 8 && line < n-1; j++ {
+		for j := 0; j < 8 && pg.lines < n-1; j++ {
 			i := k*8 + j
 			step := fmt.Sprintf("s%d: %s + %s (1.5 eq), %s, %d °C", i, substrates[i%len(substrates)], reagents[(i/3)%len(reagents)], solvents[(i/7)%len(solvents)], 20+i%60)
 			if j > 0 && j%3 == 0 {
 				step = fmt.Sprintf("s%d: @s%d + %s, %s, rt", i, i-1, reagents[(i/5)%len(reagents)], solvents[(i/2)%len(solvents)])
 			}
-			stepLines = append(stepLines, line)
+			stepLines = append(stepLines, pg.lines)
 			add(step)
 		}
 		add("```")
 	}
-	return b.String(), stepLines
+	return pg.b.String(), stepLines
 }
 
 // Typical returns a Markdown page of about n lines as a working
@@ -76,16 +71,11 @@ func Typical(n int) (text string, stepLines []int) {
 		"Work-up: diluted with water, extracted three times with ether, dried over MgSO4 and concentrated.",
 		"Yield and NMR to follow; the crude material was carried on without purification.",
 	}
-	var b strings.Builder
-	line := 0
-	add := func(s string) {
-		b.WriteString(s)
-		b.WriteByte('\n')
-		line++
-	}
+	var pg page
+	add := pg.add
 	add("# Substitution series, notebook 12")
 	i := 0
-	for k := 0; line < n; k++ {
+	for k := 0; pg.lines < n; k++ {
 		add("")
 		add(fmt.Sprintf("## Entry %d", k+1))
 		for p := range 4 {
@@ -93,7 +83,7 @@ func Typical(n int) (text string, stepLines []int) {
 		}
 		add("")
 		add("```reaction")
-		for j := 0; j < 8 && line < n-1; j++ {
+		for j := 0; j < 8 && pg.lines < n-1; j++ {
 			tail := tails[(i/7)%len(tails)] + strings.Repeat("C", (i/70)%6)
 			temp := 20 + (i*7)%61
 			var step string
@@ -105,11 +95,23 @@ func Typical(n int) (text string, stepLines []int) {
 			if j == 0 {
 				step = fmt.Sprintf("t%d: %s", i, step)
 			}
-			stepLines = append(stepLines, line)
+			stepLines = append(stepLines, pg.lines)
 			add(step)
 			i++
 		}
 		add("```")
 	}
-	return b.String(), stepLines
+	return pg.b.String(), stepLines
+}
+
+// page is a text written line by line, with the count of its lines.
+type page struct {
+	b     strings.Builder
+	lines int
+}
+
+func (p *page) add(s string) {
+	p.b.WriteString(s)
+	p.b.WriteByte('\n')
+	p.lines++
 }
