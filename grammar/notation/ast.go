@@ -299,7 +299,7 @@ func (t Term) Sep() (Sep, bool) {
 	if n.sub == 0 {
 		return Sep{}, false
 	}
-	at := t.t.pos(int32(n.x))
+	at := t.t.pos(n.c)
 	return Sep{Span: source.Span{Start: at, End: at + 1}, Kind: SepKind(n.sub)}, true
 }
 
@@ -326,14 +326,15 @@ func (t Term) firstQuantity() int32 {
 // Quantities returns the term's quantities in the order written (before
 // and after the substance, and inside parentheses).
 func (t Term) Quantities() Quantities {
-	return Quantities{t.t, t.firstQuantity(), t.n().b}
+	nq, _ := unpack16(t.n().b)
+	return Quantities{t.t, t.firstQuantity(), nq}
 }
 
 // Notes returns the parenthesised texts that are not quantities, such as
 // "(freshly distilled)".
 func (t Term) Notes() Notes {
-	n := t.n()
-	return Notes{t.t, t.firstQuantity() + n.b, n.c}
+	nq, nn := unpack16(t.n().b)
+	return Notes{t.t, t.firstQuantity() + nq, nn}
 }
 
 // SubstanceKind says how a substance is written.
@@ -508,7 +509,35 @@ func (q Quantity) Kind() QuantityKind { return QuantityKind(q.n().sub) }
 const hasValue uint8 = 1
 
 // Value returns the number; it is meaningless when HasValue is false.
-func (q Quantity) Value() float64 { return q.n().value() }
+func (q Quantity) Value() float64 {
+	if q.n().flags&hasValue == 0 {
+		return 0
+	}
+	v, _, _ := readSigned(q.number())
+	return v
+}
+
+// number returns q's text from its number on: a quantity starts with its
+// number but for "at" or "for" before it ("at 60 °C"), which
+// parser.quantity accepts only as words of their own.
+func (q Quantity) number() string {
+	s := q.t.text(q.Span())
+	for {
+		var w int
+		switch {
+		case len(s) > 2 && foldsTo(s[:2], "at"):
+			w = 2
+		case len(s) > 3 && foldsTo(s[:3], "for"):
+			w = 3
+		}
+		if w == 0 || spaceLen(s[w:]) == 0 {
+			return s
+		}
+		for s = s[w:]; spaceLen(s) > 0; {
+			s = s[spaceLen(s):]
+		}
+	}
+}
 
 // HasValue reports whether the quantity is a number; it is false for
 // words such as "rt" and "reflux".
@@ -556,11 +585,17 @@ func (q Quantity) Ratio() []float64 {
 	if QuantityKind(n.sub) != Ratio {
 		return nil
 	}
-	out := make([]float64, n.c)
-	for k := range out {
-		out[k] = q.t.nodes[q.i+n.b+int32(k)].value()
+	// The parts are numbers separated by ':', each read whole when the
+	// ratio was read, so reading them again stops at each ':'.
+	var out []float64
+	for s := q.number(); ; {
+		v, end, _ := readSigned(s)
+		out = append(out, v)
+		if end >= len(s) || s[end] != ':' {
+			return out
+		}
+		s = s[end+1:]
 	}
-	return out
 }
 
 // Quantities is a list of quantities of one term.

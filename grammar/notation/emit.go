@@ -1,10 +1,6 @@
 package notation
 
-import (
-	"math"
-
-	"walden/grammar/source"
-)
+import "walden/grammar/source"
 
 // emit appends the drafted step p.st to the nodes of t and returns the
 // index of its node. A step's nodes form one block: the step, its
@@ -100,9 +96,9 @@ func (e *emitter) term(ti int32, d *draftTerm) {
 	}
 	n := &e.nodes[ti]
 	if d.sep.Kind != 0 {
-		n.sub, n.x = uint8(d.sep.Kind), int64(e.rel(d.sep.Span.Start))
+		n.sub, n.c = uint8(d.sep.Kind), e.rel(d.sep.Span.Start)
 	}
-	n.flags, n.a, n.b, n.c = flags, first-ti, d.q1-d.q0, d.n1-d.n0
+	n.flags, n.a, n.b = flags, first-ti, pack16(d.q1-d.q0, d.n1-d.n0)
 }
 
 // substance fills the substance node si from d and appends its parts
@@ -137,33 +133,25 @@ func plainFlag(d *draftSubstance) uint8 {
 	return 0
 }
 
-// quantity fills the quantity node qi from d and appends its children.
+// quantity fills the quantity node qi from d and appends the upper end
+// of its range.
 func (e *emitter) quantity(qi int32, d *draftQuantity) {
-	var to, b, c int32
+	var to int32
 	if q := e.p.qty(d.to); q != nil {
 		to = e.add(nQuantity, q.Span)
 		e.quantity(to, q)
 		to -= qi
 	}
-	if d.Kind == Ratio {
-		b, c = e.next()-qi, d.r1-d.r0
-		at := e.rel(d.Span.Start)
-		for _, v := range e.p.nums[d.r0:d.r1] {
-			e.nodes = append(e.nodes, node{}) // set in place, as in add
-			n := &e.nodes[len(e.nodes)-1]
-			n.kind, n.start, n.end, n.x = nRatioPart, at, at, int64(math.Float64bits(v))
-		}
-	} else {
-		b, c = e.rel(d.UnitSpan.Start), e.rel(d.UnitSpan.End)
-	}
 	n := &e.nodes[qi]
-	n.sub, n.x = uint8(d.Kind), int64(math.Float64bits(d.Value))
+	n.sub, n.a = uint8(d.Kind), to
 	if d.HasValue {
 		n.flags, n.unit = hasValue, d.unit
 	} else {
 		n.unit = d.word // a quantity with no value has no unit
 	}
-	n.a, n.b, n.c = to, b, c
+	if d.Kind != Ratio {
+		n.b, n.c = e.rel(d.UnitSpan.Start), e.rel(d.UnitSpan.End)
+	}
 }
 
 // emitScratch writes the drafted step into the parser's node buffer, as

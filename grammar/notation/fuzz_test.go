@@ -57,11 +57,21 @@ func FuzzParse(f *testing.F) {
 				start = i + 1
 			}
 		}
-		steps, errLists := ParseLines(line, spans)
+		steps, allErrs := ParseLines(line, spans)
+		var wantAll source.ErrorList
 		for i, sp := range spans {
 			want, wantErrs := Parse(line[sp.Start:sp.End], sp.Start)
-			if steps[i].String() != want.String() || len(errLists[i]) != len(wantErrs) {
+			if steps[i].String() != want.String() {
 				t.Fatalf("ParseLines differs from Parse on %q:\n%s\n%s", line[sp.Start:sp.End], steps[i], want)
+			}
+			wantAll = append(wantAll, wantErrs...)
+		}
+		if len(allErrs) != len(wantAll) {
+			t.Fatalf("ParseLines gives %d errors, Parse %d", len(allErrs), len(wantAll))
+		}
+		for i := range wantAll {
+			if *allErrs[i] != *wantAll[i] {
+				t.Fatalf("error %d: ParseLines gives %v, Parse %v", i, allErrs[i], wantAll[i])
 			}
 		}
 	})

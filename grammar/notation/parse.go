@@ -8,6 +8,7 @@ import (
 	"slices"
 	"strings"
 	"sync"
+	"sync/atomic"
 	"unicode/utf8"
 	"unsafe"
 
@@ -113,47 +114,63 @@ func nodesAndText(nodes []node, text string) ([]node, string) {
 }
 
 // ParseLines parses the step lines of one host text, given by their
-// spans (as grammar/notebook finds them), and returns the steps and each
-// line's errors (nil for a clean line), in the order of spans. It gives
-// the same trees as calling Parse on each line, but its Steps share one
-// copy of the text, and Trees of about 80 steps each, so that reading a
-// whole page costs an allocation per 80 lines. A span outside text gives
-// an empty Step and a "bad-span" error.
-func ParseLines(text []byte, spans []source.Span) ([]Step, []source.ErrorList) {
+// spans (as grammar/notebook finds them), and returns the steps, in the
+// order of spans, and the errors of all lines: each line's as Parse
+// sorts them, line after line. Their spans are host offsets, so one list
+// serves the page, as go/scanner's serves a file, and a page of clean
+// lines allocates none. It gives the same trees as calling Parse on each
+// line, but its Steps share one copy of the text, and Trees of about a
+// hundred steps each, so that reading a whole page costs an allocation
+// per hundred lines. A span outside text gives an empty Step and a
+// "bad-span" error.
+func ParseLines(text []byte, spans []source.Span) ([]Step, source.ErrorList) {
 	host := string(text)
 	steps := make([]Step, len(spans))
-	errs := make([]source.ErrorList, len(spans))
-	// A long page is cut into one run of lines per core, each read by a
-	// parser of its own into Trees of its own: lines are independent,
-	// and on opening a page the chemist waits for the whole of it. Short
-	// pages are not worth a goroutine.
+	// A long page is cut into runs of lines, read by one goroutine per
+	// core, each run by a parser of its own into Trees of its own: lines
+	// are independent, and on opening a page the chemist waits for the
+	// whole of it. There are a few runs per core, taken in turn, so that
+	// a core the collector or another process holds for a while delays
+	// only the run it is reading. Short pages are not worth a goroutine.
 	workers := min(runtime.GOMAXPROCS(0), len(spans)/parallelLines)
 	if workers < 2 {
-		parseRun(text, host, spans, steps, errs)
-		return steps, errs
+		return steps, parseRun(text, host, spans, steps)
+	}
+	runs := min(runsPerCore*workers, len(spans)/parallelLines)
+	errs := make([]source.ErrorList, runs)
+	var next atomic.Int32
+	work := func() {
+		for r := int(next.Add(1) - 1); r < runs; r = int(next.Add(1) - 1) {
+			lo, hi := r*len(spans)/runs, (r+1)*len(spans)/runs
+			errs[r] = parseRun(text, host, spans[lo:hi], steps[lo:hi])
+		}
 	}
 	var wg sync.WaitGroup
-	for w := range workers {
-		lo, hi := w*len(spans)/workers, (w+1)*len(spans)/workers
+	for range workers - 1 {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			parseRun(text, host, spans[lo:hi], steps[lo:hi], errs[lo:hi])
+			work()
 		}()
 	}
+	work() // the calling goroutine is one of the workers
 	wg.Wait()
-	return steps, errs
+	return steps, slices.Concat(errs...)
 }
 
-// parallelLines is the fewest lines per goroutine in ParseLines: about
-// a quarter of a millisecond of reading, against the few microseconds a
+// parallelLines is the fewest lines per run in ParseLines: about a
+// quarter of a millisecond of reading, against the few microseconds a
 // goroutine costs to start and join, so that a page of a few hundred
 // lines already opens on both cores of a small machine.
 const parallelLines = 256
 
-// parseRun parses the lines at spans into steps and errs with one
-// parser, as ParseLines describes.
-func parseRun(text []byte, host string, spans []source.Span, steps []Step, errs []source.ErrorList) {
+// runsPerCore is how many runs ParseLines cuts a long page into per
+// core.
+const runsPerCore = 4
+
+// parseRun parses the lines at spans into steps with one parser, as
+// ParseLines describes, and returns their errors.
+func parseRun(text []byte, host string, spans []source.Span, steps []Step) (errs source.ErrorList) {
 	p := parsers.Get().(*parser)
 	defer p.release()
 	// The nodes of the lines from line first on are gathered in the
@@ -182,7 +199,7 @@ func parseRun(text []byte, host string, spans []source.Span, steps []Step, errs 
 		p.errs = nil
 		if sp.Start < 0 || sp.Start > sp.End || int(sp.End) > len(text) {
 			// A caller's mistake, reported rather than panicking.
-			errs[i].Add(sp, "bad-span", fmt.Sprintf("line span %d-%d lies outside the %d-byte text", sp.Start, sp.End, len(text)))
+			errs.Add(sp, "bad-span", fmt.Sprintf("line span %d-%d lies outside the %d-byte text", sp.Start, sp.End, len(text)))
 			emitBad(&scratch, sp)
 		} else {
 			p.src, p.base = text[sp.Start:sp.End], sp.Start
@@ -190,7 +207,7 @@ func parseRun(text []byte, host string, spans []source.Span, steps []Step, errs 
 			if sp.Len() <= MaxLineLength {
 				p.str = host[sp.Start:sp.End]
 			}
-			errs[i] = p.parse()
+			errs = append(errs, p.parse()...)
 			p.emit(&scratch)
 		}
 		if len(scratch.nodes) > treeNodes && start > 0 {
@@ -204,12 +221,13 @@ func parseRun(text []byte, host string, spans []source.Span, steps []Step, errs 
 	if len(spans) > first {
 		flush(len(spans), len(scratch.nodes))
 	}
+	return errs
 }
 
 // treeNodes is the most nodes of a Tree made by ParseLines (but for a
-// line of more): 32 KiB of 32-byte nodes (TestNodeSize), the largest of
-// the runtime's small objects, about 80 steps.
-const treeNodes = 1024
+// line of more): as many 24-byte nodes (TestNodeSize) as fit in 32 KiB,
+// the largest of the runtime's small objects; a hundred steps or so.
+const treeNodes = 32 << 10 / 24
 
 // emitBad appends the empty step of a span outside the text, which has
 // no offsets in it, and returns its index.

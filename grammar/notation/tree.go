@@ -1,8 +1,6 @@
 package notation
 
 import (
-	"math"
-
 	"walden/grammar/source"
 )
 
@@ -36,12 +34,11 @@ const (
 	nSubstance
 	nQuantity
 	nNote
-	nRatioPart
 )
 
-// node is one record of a Tree, 32 bytes. Offsets (start, end, and the
-// spans kept in b, c and x) are relative to Tree.base; child references
-// are distances forward from the node, 0 meaning none. The other fields
+// node is one record of a Tree, 24 bytes. Offsets (start, end, and those
+// kept in b and c) are relative to Tree.base; child references are
+// distances forward from the node, 0 meaning none. The other fields
 // mean, by kind:
 //
 //	step:      a, b, c the number of reactants, conditions, products;
@@ -49,16 +46,19 @@ const (
 //	           whose nodes follow the step's in this order, and then
 //	           the terms
 //	mark:      sub the MarkState
-//	term:      sub the SepKind (0: no separator), x its offset; a the
+//	term:      sub the SepKind (0: no separator), c its offset; a the
 //	           first child: the substance if flags has termSubstance,
-//	           then b quantities, then c notes
+//	           then the quantities, then the notes, whose numbers b
+//	           holds (see counts)
 //	substance: sub the SubstanceKind; flags plainText; a the ratio;
 //	           b the first part, c their number
 //	quantity:  sub the QuantityKind; flags hasValue; unit the unit's id
 //	           if it has a value, else the word's; a the upper end of a
-//	           range; b, c the unit's span (for a ratio: the first part
-//	           and their number); x the value's bits
-//	ratio part: x the part's bits
+//	           range; b, c the unit's span
+//
+// A quantity keeps no number: Value and Ratio read it again from the
+// text with the functions that read it first, which costs less than
+// eight more bytes in every node of every page.
 type node struct {
 	kind       nodeKind
 	sub        uint8
@@ -66,11 +66,17 @@ type node struct {
 	unit       uint8
 	start, end int32
 	a, b, c    int32
-	x          int64
 }
 
-// value returns the float64 kept in x.
-func (n *node) value() float64 { return math.Float64frombits(uint64(n.x)) }
+// Two counts or offsets of at most 64 Ki share one field: no line is
+// longer than MaxLineLength, 16 KiB, so no count or distance within one
+// line reaches 1<<16.
+const _ = uint(1<<16 - 1 - MaxLineLength)
+
+// pack16 and unpack16 keep two such numbers in one field.
+func pack16(lo, hi int32) int32 { return lo | hi<<16 }
+
+func unpack16(v int32) (lo, hi int32) { return v & 0xffff, int32(uint32(v) >> 16) }
 
 func (t *Tree) pos(rel int32) source.Pos { return t.base + source.Pos(rel) }
 
