@@ -61,33 +61,33 @@ type draftQuantity struct {
 // kin overwrite them whole, with a composite literal of their concrete
 // type, which the compiler clears inline (a generic clear costs a call).
 type slab[T any] struct {
-	chunks [][]T
-	cur    []T   // chunks[c]
-	c, n   int32 // the chunk in use, and the drafts taken from it
+	chunks []*[slabChunk]T
+	cur    *[slabChunk]T // the chunk of the next draft, once it is taken
+	next   int32         // the id of the next draft
 }
 
 const slabChunk = 32
 
-// get returns a draft, holding whatever it last held, and its id.
+// get returns a draft, holding whatever it last held, and its id. It is
+// small enough to be inlined: a chunk is a pointer to an array, so the
+// index needs no bounds check, and a new chunk is taken out of line.
 func (s *slab[T]) get() (*T, int32) {
-	if int(s.n) == len(s.cur) {
-		s.grow()
+	id := s.next
+	if uint32(id)%slabChunk == 0 {
+		s.grow(id)
 	}
-	e := &s.cur[s.n]
-	id := s.c*slabChunk + s.n
-	s.n++
-	return e, id
+	s.next = id + 1
+	return &s.cur[uint32(id)%slabChunk], id
 }
 
-// grow moves to the next chunk, making it if it is new.
-func (s *slab[T]) grow() {
-	if len(s.cur) > 0 {
-		s.c++
+// grow moves to the chunk of the draft id, the first of its chunk,
+// making the chunk if it is new.
+func (s *slab[T]) grow(id int32) {
+	c := int(uint32(id) / slabChunk)
+	if c == len(s.chunks) {
+		s.chunks = append(s.chunks, new([slabChunk]T))
 	}
-	if int(s.c) == len(s.chunks) {
-		s.chunks = append(s.chunks, make([]T, slabChunk))
-	}
-	s.cur, s.n = s.chunks[s.c], 0
+	s.cur = s.chunks[c]
 }
 
 // at returns the draft with the given id.
@@ -98,12 +98,7 @@ func (s *slab[T]) at(id int32) *T {
 }
 
 // reset makes every draft free for the next line.
-func (s *slab[T]) reset() {
-	s.c, s.n = 0, 0
-	if len(s.chunks) > 0 {
-		s.cur = s.chunks[0]
-	}
-}
+func (s *slab[T]) reset() { s.next = 0 }
 
 // newTerm, newSubstance and newQuantity return a zero draft.
 func (p *parser) newTerm() *draftTerm {

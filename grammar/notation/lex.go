@@ -3,6 +3,8 @@ package notation
 import (
 	"strings"
 	"unicode/utf8"
+
+	"walden/grammar/source"
 )
 
 // tokKind is the kind of a lexical token of a step line.
@@ -17,14 +19,19 @@ const (
 )
 
 // tok is a token with its byte range in the line. A group's range
-// includes its parentheses (the closing one may be missing). It is 24
-// bytes: tokens are appended and copied for every word of a line.
+// includes its parentheses (the closing one may be missing). It is 12
+// bytes, its offsets int32 (a line read is at most MaxLineLength bytes),
+// and has four fields, so that the compiler keeps a copy of one in
+// registers: a struct of more fields is copied through memory, and
+// tokens are copied for every word of a line.
 type tok struct {
 	kind       tokKind
-	closed     bool  // for tGroup: the ')' was found
-	marks      uint8 // for tWord: the byteClass bits of its bytes, or-ed
-	start, end int
+	marks      uint8 // for tWord: the byteClass bits of its bytes, or-ed, and cQty; for tGroup: cClosed
+	start, end int32
 }
+
+// closed reports, for a tGroup, whether its ')' was found.
+func (t tok) closed() bool { return t.marks&cClosed != 0 }
 
 // spaceAt returns the length of the whitespace character at i, or 0.
 // Besides space and tab it accepts the no-break and thin spaces that
@@ -33,16 +40,16 @@ func (p *parser) spaceAt(i, end int) int {
 	if i >= end {
 		return 0
 	}
-	switch c := p.src[i]; c {
+	switch c := p.str[i]; c {
 	case ' ', '\t':
 		return 1
 	case 0xC2: // U+00A0 no-break space
-		if i+1 < end && p.src[i+1] == 0xA0 {
+		if i+1 < end && p.str[i+1] == 0xA0 {
 			return 2
 		}
 	case 0xE2: // U+2002, U+2003, U+2009 thin space, U+202F narrow no-break space
-		if i+2 < end && p.src[i+1] == 0x80 {
-			switch p.src[i+2] {
+		if i+2 < end && p.str[i+1] == 0x80 {
+			switch p.str[i+2] {
 			case 0x82, 0x83, 0x89, 0xAF:
 				return 3
 			}
@@ -56,11 +63,11 @@ func (p *parser) spaceAt(i, end int) int {
 // spaces around it.
 func (p *parser) arrowAt(i, end int) int {
 	switch {
-	case i+1 < end && p.src[i] == '-' && p.src[i+1] == '>':
+	case i+1 < end && p.str[i] == '-' && p.str[i+1] == '>':
 		return 2
-	case i+2 < end && p.src[i] == 0xE2 && p.src[i+1] == 0x86 && p.src[i+2] == 0x92: // U+2192 →
+	case i+2 < end && p.str[i] == 0xE2 && p.str[i+1] == 0x86 && p.str[i+2] == 0x92: // U+2192 →
 		return 3
-	case i+2 < end && p.src[i] == 0xE2 && p.src[i+1] == 0x9F && p.src[i+2] == 0xB6: // U+27F6 ⟶
+	case i+2 < end && p.str[i] == 0xE2 && p.str[i+1] == 0x9F && p.str[i+2] == 0xB6: // U+27F6 ⟶
 		return 3
 	}
 	return 0
@@ -76,15 +83,15 @@ func (p *parser) commaSeparates(i, end int) bool {
 	if i+1 >= end || p.spaceAt(i+1, end) > 0 || i == 0 {
 		return true
 	}
-	prev, next := p.src[i-1], p.src[i+1]
+	prev, next := p.str[i-1], p.str[i+1]
 	if !(isDigitByte(prev) || isUpperByte(prev) || prev == '\'') || !(isDigitByte(next) || isUpperByte(next)) {
 		return true
 	}
 	for j := i + 1; j < end && p.spaceAt(j, end) == 0; j++ {
-		if p.src[j] == '-' {
+		if p.str[j] == '-' {
 			return false
 		}
-		if p.src[j] == ',' && j+1 < end && p.spaceAt(j+1, end) > 0 {
+		if p.str[j] == ',' && j+1 < end && p.spaceAt(j+1, end) > 0 {
 			return true
 		}
 	}
@@ -110,6 +117,15 @@ const (
 	cDash
 	// cCheck: '>' and '+', which wordChecks reports inside a word.
 	cCheck
+	// cColon: ':', which a ratio holds ("4:1"), and a label at its end.
+	cColon
+	// cQty is no byte class: lex sets it on a word that passes
+	// mayStartQuantity, whose quick test it makes at the first byte
+	// while that is at hand, so that most name words cost no call.
+	cQty
+	// cClosed is no byte class either: lex sets it on a group whose ')'
+	// it found.
+	cClosed
 )
 
 var byteClass = func() (t [256]uint8) {
@@ -118,6 +134,7 @@ var byteClass = func() (t [256]uint8) {
 	}
 	t['/'] |= cSlash
 	t[0xE2] |= cDash
+	t[':'] |= cColon
 	t['>'] |= cCheck
 	t['+'] |= cCheck
 	return t
@@ -136,14 +153,14 @@ var startsToken = func() (t [256]bool) {
 // a separating comma or an arrow.
 func (p *parser) breakAt(i, end int) bool {
 	return i >= end || p.spaceAt(i, end) > 0 || p.arrowAt(i, end) > 0 ||
-		p.src[i] == ',' && p.commaSeparates(i, end)
+		p.str[i] == ',' && p.commaSeparates(i, end)
 }
 
 // matchParen returns the index of the ')' closing the '(' at i, or -1.
 func (p *parser) matchParen(i, end int) int {
 	depth := 0
 	for j := i; j < end; j++ {
-		switch p.src[j] {
+		switch p.str[j] {
 		case '(':
 			depth++
 		case ')':
@@ -162,7 +179,7 @@ func (p *parser) matchParen(i, end int) int {
 // SMILES and separate anywhere (see commaSeparates for names).
 func (p *parser) lex(toks []tok, i, end int) []tok {
 	// src ends at end, which spares the loops bounds checks.
-	src := p.src[:end]
+	src := p.str[:end]
 	for i < len(src) {
 		c := src[i]
 		// A letter, digit or bracket starts a word: only the bytes of
@@ -178,18 +195,18 @@ func (p *parser) lex(toks []tok, i, end int) []tok {
 			}
 			if c == '-' || c == 0xE2 { // the first bytes of the arrows
 				if n := p.arrowAt(i, end); n > 0 {
-					toks = addTok(toks, tArrow, i, i+n)
+					toks = addTok(toks, tArrow, 0, i, i+n)
 					i += n
 					continue
 				}
 			}
 			switch c {
 			case '+':
-				toks = addTok(toks, tPlus, i, i+1)
+				toks = addTok(toks, tPlus, 0, i, i+1)
 				i++
 				continue
 			case ',':
-				toks = addTok(toks, tComma, i, i+1)
+				toks = addTok(toks, tComma, 0, i, i+1)
 				i++
 				continue
 			case '(':
@@ -197,13 +214,12 @@ func (p *parser) lex(toks []tok, i, end int) []tok {
 				// parenthesis; "(1.5 eq)" stands apart and is a group.
 				close := p.matchParen(i, end)
 				if close < 0 {
-					toks = addTok(toks, tGroup, i, end)
+					toks = addTok(toks, tGroup, 0, i, end)
 					i = end
 					continue
 				}
-				if p.breakAt(close+1, end) {
-					toks = addTok(toks, tGroup, i, close+1)
-					toks[len(toks)-1].closed = true
+				if close+1 < len(src) && src[close+1] == ' ' || p.breakAt(close+1, end) {
+					toks = addTok(toks, tGroup, cClosed, i, close+1)
 					i = close + 1
 					continue
 				}
@@ -240,7 +256,8 @@ func (p *parser) lex(toks []tok, i, end int) []tok {
 						break scan // an arrow
 					}
 				case ',':
-					if p.commaSeparates(j, end) {
+					// A comma before a space, the commonest, separates.
+					if j+1 < len(src) && src[j+1] == ' ' || p.commaSeparates(j, end) {
 						break scan
 					}
 				default: // 0xC2, 0xE2: a space, an arrow or a letter
@@ -252,20 +269,29 @@ func (p *parser) lex(toks []tok, i, end int) []tok {
 			marks |= cl
 			j++
 		}
-		toks = addTok(toks, tWord, i, j)
-		toks[len(toks)-1].marks = marks
+		switch quantityStart[c] { // mayStartQuantity
+		case qsAlways:
+			marks |= cQty
+		case qsPair:
+			second := byte(' ') // a word of one letter is followed by the joining space
+			if j-i > 1 {
+				second = src[i+1]
+			}
+			if quantityStartPair(c, second) {
+				marks |= cQty
+			}
+		}
+		toks = addTok(toks, tWord, marks, i, j)
 		i = j
 	}
 	return toks
 }
 
-// addTok appends a token. Its fields are set in place, as in
-// emitter.add, rather than copied from a composite literal.
-func addTok(toks []tok, kind tokKind, start, end int) []tok {
-	toks = append(toks, tok{})
-	t := &toks[len(toks)-1]
-	t.kind, t.start, t.end = kind, start, end
-	return toks
+// addTok appends a token. A tok has four fields, which the compiler
+// keeps in registers: the literal is stored field by field, with no
+// copy through the stack.
+func addTok(toks []tok, kind tokKind, marks uint8, start, end int) []tok {
+	return append(toks, tok{kind: kind, marks: marks, start: int32(start), end: int32(end)})
 }
 
 // text returns the bytes of t as a string.
@@ -282,4 +308,10 @@ func quote(s string) string {
 		s = s[:cut] + "…"
 	}
 	return "'" + strings.ReplaceAll(s, "'", "’") + "'"
+}
+
+// tokSpan converts the range from the start of a to the end of b into
+// host offsets.
+func (p *parser) tokSpan(a, b tok) source.Span {
+	return p.span(int(a.start), int(b.end))
 }

@@ -1,7 +1,6 @@
 package notation
 
 import (
-	"encoding/binary"
 	"fmt"
 	"math/bits"
 	"runtime"
@@ -45,9 +44,8 @@ type parser struct {
 	nodes      []node        // Parse's nodes before they are copied into the Tree
 	tokBuf     [32]tok
 	groupBuf   [16]tok
-	// The lists terms builds, kept here rather than on its stack, where
-	// they would be cleared for every line.
-	segBuf    [16]segment
+	// The list terms builds, kept here rather than on its stack, where
+	// it would be cleared for every line.
 	placedBuf [16]placed
 }
 
@@ -254,9 +252,9 @@ func (p *parser) parse() source.ErrorList {
 			len(line), MaxLineLength)
 		return p.errs
 	}
-	p.checkBytes()
+	slash := p.checkBytes()
 	end := len(line)
-	if c := p.commentStart(); c >= 0 {
+	if c := p.commentStart(slash); c >= 0 {
 		st.comment, st.hasComment = p.span(c, end), true
 		end = c
 	}
@@ -305,21 +303,32 @@ func (p *parser) skipSpace(i, end int) int {
 
 // checkBytes reports invalid UTF-8 and control characters, which no
 // editor shows faithfully; the bytes stay in the words that hold them.
-func (p *parser) checkBytes() {
-	for i := 0; i < len(p.src); {
-		// Eight printable ASCII bytes at a time: the common case. Else
-		// the printable bytes before the first other one are skipped.
-		if i+8 <= len(p.src) {
-			m := unprintable8(binary.LittleEndian.Uint64(p.src[i:]))
+// It returns the index of the first '/', where commentStart begins to
+// look, or -1: most lines hold none, and then need no second look.
+func (p *parser) checkBytes() (slash int) {
+	// The line is read as p.str, as every reading below does: in a
+	// batch p.src is another copy of the text, which would be a second
+	// stream of bytes through the cache.
+	s := p.str
+	slash = -1
+	for i := 0; i < len(s); {
+		// Eight printable ASCII bytes but '/' at a time: the common
+		// case. Else the bytes before the first other one are skipped.
+		if i+8 <= len(s) {
+			m := unprintableOrSlash8(load64(s, i))
 			if m == 0 {
 				i += 8
 				continue
 			}
 			i += bits.TrailingZeros64(m) / 8
 		}
-		c := p.src[i]
+		c := s[i]
 		if c < utf8.RuneSelf {
-			if c < 0x20 && c != '\t' || c == 0x7F {
+			if c == '/' {
+				if slash < 0 {
+					slash = i
+				}
+			} else if c < 0x20 && c != '\t' || c == 0x7F {
 				p.errorf(i, i+1, "control-character", "control character U+%04X found in a step line; delete it", c)
 			}
 			i++
@@ -327,19 +336,19 @@ func (p *parser) checkBytes() {
 		}
 		// Two- and three-byte characters that cannot be overlong or
 		// surrogates need no decoding: '°', 'µ', '–', '→' and their kin.
-		if i+1 < len(p.src) && 0xC2 <= c && c <= 0xDF && p.src[i+1]&0xC0 == 0x80 {
+		if i+1 < len(s) && 0xC2 <= c && c <= 0xDF && s[i+1]&0xC0 == 0x80 {
 			i += 2
 			continue
 		}
-		if i+2 < len(p.src) && (0xE1 <= c && c <= 0xEC || c == 0xEE || c == 0xEF) &&
-			p.src[i+1]&0xC0 == 0x80 && p.src[i+2]&0xC0 == 0x80 {
+		if i+2 < len(s) && (0xE1 <= c && c <= 0xEC || c == 0xEE || c == 0xEF) &&
+			s[i+1]&0xC0 == 0x80 && s[i+2]&0xC0 == 0x80 {
 			i += 3
 			continue
 		}
-		r, size := utf8.DecodeRune(p.src[i:])
+		r, size := utf8.DecodeRuneInString(s[i:])
 		if r == utf8.RuneError && size == 1 {
 			j := i + 1
-			for j < len(p.src) && p.src[j] >= utf8.RuneSelf && !utf8.FullRune(p.src[j:]) {
+			for j < len(s) && s[j] >= utf8.RuneSelf && !utf8.FullRuneInString(s[j:]) {
 				j++
 			}
 			p.errorf(i, j, "invalid-utf8", "invalid UTF-8 byte 0x%02X; the file must be saved as UTF-8", c)
@@ -348,30 +357,49 @@ func (p *parser) checkBytes() {
 		}
 		i += size
 	}
+	return slash
 }
 
-// unprintable8 returns a mask whose lowest set bit is the high bit of
-// the first of the eight bytes of x (little-endian) outside 0x20–0x7E,
-// or 0 when all are inside. Bits above the lowest may be set wrongly
-// (a borrow carries into the next byte), never the lowest.
-func unprintable8(x uint64) uint64 {
+// load64 reads the eight bytes of s at i as a little-endian word; the
+// compiler makes the shifts one load.
+func load64(s string, i int) uint64 {
+	s = s[i : i+8]
+	return uint64(s[0]) | uint64(s[1])<<8 | uint64(s[2])<<16 | uint64(s[3])<<24 |
+		uint64(s[4])<<32 | uint64(s[5])<<40 | uint64(s[6])<<48 | uint64(s[7])<<56
+}
+
+// unprintableOrSlash8 returns a mask whose lowest set bit is the high
+// bit of the first of the eight bytes of x (little-endian) that is '/'
+// or outside 0x20–0x7E, or 0 when there is none. Bits above the lowest
+// may be set wrongly (a carry or borrow passes into the next byte, but
+// only out of a byte that is itself found), never the lowest.
+func unprintableOrSlash8(x uint64) uint64 {
 	const ones, highs = 0x0101010101010101, 0x8080808080808080
-	below := (x - 0x20*ones) &^ x & highs                      // some byte < 0x20
-	del := ((x ^ 0x7F*ones) - ones) &^ (x ^ 0x7F*ones) & highs // some byte == 0x7F
-	return (x | below | del) & highs
+	// x+1 has its high bit set for 0x7F (and the bytes above 0x7F,
+	// found by x itself); x-0x20 for the bytes below 0x20.
+	v := x ^ '/'*ones // a zero byte where x has '/'
+	return (x | (x + ones) | (x - 0x20*ones) | (v-ones)&^v) & highs
 }
 
-// commentStart returns where "//" begins a comment, or -1. The marker
+// commentStart returns where "//" begins a comment, or -1; slash is the
+// index of the line's first '/', or -1 when it has none. The marker
 // must open the line or follow a space: a SMILES never holds a space and
 // never starts with '/', so " //" cannot be part of one.
-func (p *parser) commentStart() int {
-	for from := 0; ; {
-		k := strings.Index(p.str[from:], "//")
+func (p *parser) commentStart(slash int) int {
+	if slash < 0 {
+		return -1
+	}
+	s := p.str
+	// The slashes are found by IndexByte, much faster than a search for
+	// "//"; most lines hold none, or one in a SMILES or a mixture.
+	for from := slash; ; {
+		k := strings.IndexByte(s[from:], '/')
 		if k < 0 {
 			return -1
 		}
 		i := from + k
-		if i == 0 || p.src[i-1] == ' ' || p.src[i-1] == '\t' || p.skipSpace(0, i) == i {
+		if i+1 < len(s) && s[i+1] == '/' &&
+			(i == 0 || s[i-1] == ' ' || s[i-1] == '\t' || p.skipSpace(0, i) == i) {
 			return i
 		}
 		from = i + 1
@@ -383,11 +411,11 @@ func (p *parser) commentStart() int {
 // bracket atoms (no element symbol is x or empty), and the space keeps
 // the mark apart from any word after it.
 func (p *parser) mark(st *draftStep, i, end int) int {
-	if i+2 >= end || p.src[i] != '[' || p.src[i+2] != ']' {
+	if i+2 >= end || p.str[i] != '[' || p.str[i+2] != ']' {
 		return i
 	}
 	var state MarkState
-	switch p.src[i+1] {
+	switch p.str[i+1] {
 	case ' ':
 		state = Open
 	case 'x', 'X':
@@ -422,27 +450,33 @@ func (p *parser) label(st *draftStep, toks []tok) []tok {
 	if len(toks) == 0 || toks[0].kind != tWord {
 		return toks
 	}
-	if p.numbered(toks) {
-		t := toks[0]
-		st.label, st.hasLabel = p.span(t.start, t.end), true
-		if len(toks) == 1 {
-			p.errorf(t.start, t.end, "missing-substrate", "step number %s with no step after it; write the substrate after it", quote(p.text(t)))
+	// The last byte of the first word tells a label (':') and a step
+	// number ('.' or ')') from the first word of most lines.
+	switch p.str[toks[0].end-1] {
+	case ':':
+	case '.', ')':
+		if p.numbered(toks) {
+			t := toks[0]
+			st.label, st.hasLabel = p.tokSpan(t, t), true
+			if len(toks) == 1 {
+				p.errorf(int(t.start), int(t.end), "missing-substrate", "step number %s with no step after it; write the substrate after it", quote(p.text(t)))
+			}
+			return toks[1:]
 		}
-		return toks[1:]
-	}
-	if p.src[toks[0].end-1] != ':' {
+		return toks
+	default:
 		return toks
 	}
 	t := toks[0]
 	name := p.str[t.start : t.end-1]
-	st.label, st.hasLabel = p.span(t.start, t.end), true
+	st.label, st.hasLabel = p.tokSpan(t, t), true
 	switch {
 	case name == "":
-		p.errorf(t.start, t.end, "label-empty", "':' with no label before it; write a label such as 'azide:' or delete the ':'")
+		p.errorf(int(t.start), int(t.end), "label-empty", "':' with no label before it; write a label such as 'azide:' or delete the ':'")
 	default:
 		for k := 0; k < len(name); k++ {
 			if !isLabelByte(name[k]) {
-				p.errorf(t.start, t.end-1, "label-bad",
+				p.errorf(int(t.start), int(t.end-1), "label-bad",
 					"step label %s holds %s; a label is ASCII letters, digits, '_', '-' and \"'\" followed by ':'",
 					quote(name), quote(badRune(name[k:])))
 				break
@@ -450,7 +484,7 @@ func (p *parser) label(st *draftStep, toks []tok) []tok {
 		}
 	}
 	if len(toks) == 1 {
-		p.errorf(t.start, t.end, "missing-substrate", "label %s names no step; write the substrate after it", quote(name+":"))
+		p.errorf(int(t.start), int(t.end), "missing-substrate", "label %s names no step; write the substrate after it", quote(name+":"))
 	}
 	return toks[1:]
 }
@@ -483,24 +517,16 @@ func badRune(s string) string {
 	return s[:size]
 }
 
-// segment is the tokens between two separators, toks[from:to] of the
-// line's tokens, with the separator before them (kind 0 for the first).
+// placed is a term placed in its part of the step, by its draft's id.
 // It holds no pointer, so that filling a list of them passes no write
 // barrier while the collector runs.
-type segment struct {
-	sep      tok
-	from, to int
-}
-
-// placed is a term placed in its part of the step, by its draft's id
-// (no pointer, as for segments).
 type placed struct {
 	ph phase
 	id int32
 }
 
 // phase is the part of the line a term belongs to.
-type phase int
+type phase uint8
 
 const (
 	inReactants phase = iota
@@ -508,22 +534,23 @@ const (
 	inProducts
 )
 
+// isSep reports whether a token of kind k separates terms: tPlus, tComma
+// or tArrow.
+func isSep(k tokKind) bool { return k >= tPlus }
+
+// sepFrom returns the index of the first separator in toks from i on,
+// or len(toks) (i, if i is past the end).
+func sepFrom(toks []tok, i int) int {
+	for i < len(toks) && !isSep(toks[i].kind) {
+		i++
+	}
+	return i
+}
+
 // terms groups the tokens into terms and files each into its part of the
 // step.
 func (p *parser) terms(st *draftStep, toks []tok) {
-	// The words between two separators are contiguous in toks, so each
-	// segment is a range of them and costs nothing.
-	segs := append(p.segBuf[:0], segment{})
-	for k := range toks {
-		switch toks[k].kind {
-		case tPlus, tComma, tArrow:
-			segs[len(segs)-1].to = k
-			segs = append(segs, segment{}) // set in place, as in addTok
-			segs[len(segs)-1].sep, segs[len(segs)-1].from = toks[k], k+1
-		}
-	}
-	segs[len(segs)-1].to = len(toks)
-	if len(segs) == 1 && segs[0].to == 0 {
+	if len(toks) == 0 {
 		if st.hasMark && !st.hasLabel {
 			p.errorf(int(st.mark.Span.Start-p.base), int(st.mark.Span.End-p.base), "missing-substrate",
 				"status mark with no step after it; write the step after the mark")
@@ -532,97 +559,109 @@ func (p *parser) terms(st *draftStep, toks []tok) {
 	}
 	all := p.placedBuf[:0]
 	ph := inReactants
-	for k := range segs {
-		seg := &segs[k] // not a copy: segments are read for every term
+	// The words between two separators are contiguous in toks: each
+	// segment is toks[from:to], found as it is read, with the separator
+	// before it (sepTok, kind 0 for the first) and the one after it
+	// (next, kind 0 for the last).
+	var sepTok, next tok
+	for from, to := 0, sepFrom(toks, 0); from <= len(toks); sepTok, from, to = next, to+1, sepFrom(toks, to+1) {
+		next = tok{}
+		if to < len(toks) {
+			next = toks[to]
+		}
 		var sep Sep
-		segToks := toks[seg.from:seg.to]
-		if seg.sep.kind != 0 {
-			switch seg.sep.kind {
-			case tPlus:
-				sep = Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Plus}
-			case tComma:
-				sep = Sep{Span: p.span(seg.sep.start, seg.sep.end), Kind: Comma}
-				if ph == inReactants {
-					ph = inConditions
-				} else if ph == inProducts {
-					ph = inConditions
-				}
-			case tArrow:
-				var last *draftTerm
-				if len(all) > 0 && all[len(all)-1].ph == inConditions {
-					last = p.termDrafts.at(all[len(all)-1].id)
-				}
-				if p.rangeAcrossArrow(last, segToks) {
-					continue
-				}
-				if st.hasArrow {
-					p.errorf(seg.sep.start, seg.sep.end, "second-arrow",
-						"second arrow in one step; a step has one '->' before its expected products: split the line into two steps")
-				} else {
-					st.arrow, st.hasArrow = p.span(seg.sep.start, seg.sep.end), true
-				}
-				ph = inProducts
-				if len(segToks) == 0 {
-					if k+1 < len(segs) && segs[k+1].sep.kind != tArrow {
-						p.errorf(seg.sep.start, seg.sep.end, "missing-product",
-							"expected a product after %s, found %s; write the expected product or delete the arrow",
-							quote(p.text(seg.sep)), quote(p.text(segs[k+1].sep)))
-					}
-					// A bare arrow at the end of a line asks for the
-					// prediction; it is not an error.
-					continue
-				}
-				all = append(all, placed{inProducts, p.term(segToks, Sep{}).id})
+		segToks := toks[from:to]
+		switch sepTok.kind {
+		case tPlus:
+			sep = Sep{Span: p.tokSpan(sepTok, sepTok), Kind: Plus}
+		case tComma:
+			sep = Sep{Span: p.tokSpan(sepTok, sepTok), Kind: Comma}
+			if ph == inReactants {
+				ph = inConditions
+			} else if ph == inProducts {
+				ph = inConditions
+			}
+		case tArrow:
+			var last *draftTerm
+			if len(all) > 0 && all[len(all)-1].ph == inConditions {
+				last = p.termDrafts.at(all[len(all)-1].id)
+			}
+			if p.rangeAcrossArrow(last, segToks) {
 				continue
 			}
+			if st.hasArrow {
+				p.errorf(int(sepTok.start), int(sepTok.end), "second-arrow",
+					"second arrow in one step; a step has one '->' before its expected products: split the line into two steps")
+			} else {
+				st.arrow, st.hasArrow = p.tokSpan(sepTok, sepTok), true
+			}
+			ph = inProducts
+			if len(segToks) == 0 {
+				if next.kind != 0 && next.kind != tArrow {
+					p.errorf(int(sepTok.start), int(sepTok.end), "missing-product",
+						"expected a product after %s, found %s; write the expected product or delete the arrow",
+						quote(p.text(sepTok)), quote(p.text(next)))
+				}
+				// A bare arrow at the end of a line asks for the
+				// prediction; it is not an error.
+				continue
+			}
+			all = append(all, placed{inProducts, p.term(segToks, Sep{}).id})
+			continue
 		}
 		if len(segToks) == 0 {
-			p.emptySegment(segs, k, ph)
+			p.emptySegment(sepTok, next, from == 0, ph)
 			continue
 		}
 		all = append(all, placed{ph, p.term(segToks, sep).id})
 	}
-	// One backing array for the three lists.
-	var count [3]int
+	// One backing array for the three lists. The counts and the next
+	// places of the three phases are packed 16 bits each into one word
+	// (a line has fewer than 1<<16 terms), which stays in a register:
+	// counters in an array would be incremented through memory, each
+	// waiting for the last.
+	var counts uint64
 	for _, pt := range all {
-		count[pt.ph]++
+		counts += 1 << (16 * pt.ph)
 	}
-	// Every place of p.order is written below: it is grown, not cleared.
-	p.order = slices.Grow(p.order[:0], len(all))[:len(all)]
-	next := [3]int{0, count[0], count[0] + count[1]}
+	nR, nC := int(counts&0xFFFF), int(counts>>16&0xFFFF)
+	// Every place of order is written below: it is grown, not cleared.
+	order := slices.Grow(p.order[:0], len(all))[:len(all)]
+	at := uint64(nR)<<16 | uint64(nR+nC)<<32 // 0, nR, nR+nC
 	for _, pt := range all {
-		p.order[next[pt.ph]] = pt.id
-		next[pt.ph]++
+		sh := 16 * pt.ph
+		order[at>>sh&0xFFFF] = pt.id
+		at += 1 << sh
 	}
-	st.nR, st.nC, st.nP = count[0], count[1], count[2]
+	p.order = order
+	st.nR, st.nC, st.nP = nR, nC, len(all)-nR-nC
 }
 
-// emptySegment reports a separator with nothing on one side.
-func (p *parser) emptySegment(segs []segment, k int, ph phase) {
-	seg := segs[k]
+// emptySegment reports a separator with nothing on one side: sep is the
+// separator before the empty segment (kind 0 for the first), next the
+// one after it (kind 0 for the last).
+func (p *parser) emptySegment(sep, next tok, first bool, ph phase) {
 	switch {
-	case k == 0:
-		next := segs[1].sep
-		p.errorf(next.start, next.end, "missing-substrate",
+	case first:
+		p.errorf(int(next.start), int(next.end), "missing-substrate",
 			"expected the substrate before %s, found the start of the line; write the substrate first", quote(p.text(next)))
-	case k == len(segs)-1:
+	case next.kind == 0:
 		what := "a reactant"
 		switch {
-		case seg.sep.kind == tComma:
+		case sep.kind == tComma:
 			what = "a condition (solvent, temperature, time or reagent)"
 		case ph == inProducts:
 			what = "a product"
 		case ph == inConditions:
 			what = "a reagent"
 		}
-		p.errorf(seg.sep.start, seg.sep.end, "missing-term",
+		p.errorf(int(sep.start), int(sep.end), "missing-term",
 			"expected %s after %s, found the end of the line; write it or delete the %s",
-			what, quote(p.text(seg.sep)), quote(p.text(seg.sep)))
+			what, quote(p.text(sep)), quote(p.text(sep)))
 	default:
-		next := segs[k+1].sep
-		p.errorf(seg.sep.start, next.end, "empty-term",
+		p.errorf(int(sep.start), int(next.end), "empty-term",
 			"nothing between %s and %s; delete one of them or write the missing term",
-			quote(p.text(seg.sep)), quote(p.text(next)))
+			quote(p.text(sep)), quote(p.text(next)))
 	}
 }
 

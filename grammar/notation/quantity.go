@@ -5,6 +5,7 @@ import (
 	"strconv"
 	"strings"
 	"unicode/utf8"
+	"unsafe"
 )
 
 // The unit and word tables are data, not code: units.tsv lists every unit
@@ -28,12 +29,16 @@ var (
 	quantityWordLens  [64]bool
 	quantityWordPairs [1 << 16 / 64]uint64
 
-	// quantityStart marks the first bytes mayStartQuantity may accept:
-	// digits, signs, the point and non-ASCII bytes, the first letters of
-	// the words of words.tsv in either case, and 'a', 'f' for "at" and
-	// "for". Most names and SMILES start otherwise ('C', 'N', '[') and
-	// fail at this one lookup.
-	quantityStart [256]bool
+	// quantityStart classes the first bytes for mayStartQuantity: qsAlways
+	// for digits, signs, the point and non-ASCII bytes, qsPair for the
+	// first letters of the words of words.tsv in either case and 'a', 'f'
+	// for "at" and "for", whose second byte decides. Most names and
+	// SMILES start otherwise ('N', '[') and fail at this one lookup.
+	quantityStart [256]uint8
+
+	// quantityStartPairs holds the first two bytes, lower-cased, of the
+	// words of words.tsv and of "at" and "for".
+	quantityStartPairs [1 << 16 / 64]uint64
 
 	// unitNames and wordNames are the canonical units and words, indexed
 	// by unit.id: a Tree keeps the index, not the string.
@@ -44,8 +49,7 @@ var (
 // unit is one row of units.tsv or words.tsv.
 type unit struct {
 	kind QuantityKind
-	name string // canonical unit, or the word for words.tsv
-	id   uint8  // index of name in unitNames or wordNames
+	id   uint8 // index of the canonical unit or word in unitNames or wordNames
 }
 
 // nameID returns the index of name in *names, adding it if new.
@@ -68,7 +72,7 @@ func init() {
 		kinds[k.String()] = k
 	}
 	for _, row := range tsvRows(unitsTSV) {
-		u := unit{kind: kinds[row[1]], name: row[2], id: nameID(&unitNames, row[2])}
+		u := unit{kind: kinds[row[1]], id: nameID(&unitNames, row[2])}
 		if u.kind == 0 || len(row) < 5 {
 			panic("notation: bad row in units.tsv: " + strings.Join(row, "\t"))
 		}
@@ -78,7 +82,7 @@ func init() {
 		}
 	}
 	for _, row := range tsvRows(wordsTSV) {
-		u := unit{kind: kinds[row[1]], name: row[2], id: nameID(&wordNames, row[2])}
+		u := unit{kind: kinds[row[1]], id: nameID(&wordNames, row[2])}
 		if u.kind == 0 || len(row) < 4 {
 			panic("notation: bad row in words.tsv: " + strings.Join(row, "\t"))
 		}
@@ -94,10 +98,19 @@ func init() {
 			maxWordsInQuantityWord = max(maxWordsInQuantityWord, strings.Count(w, " ")+1)
 		}
 	}
+	quantityStartPairs = quantityWordPairs
+	for _, w := range []string{"at", "for"} {
+		pair := uint16(w[0])<<8 | uint16(w[1])
+		quantityStartPairs[pair/64] |= 1 << (pair % 64)
+	}
 	for c := range quantityStart {
 		b := byte(c)
-		quantityStart[c] = isDigitByte(b) || b == '-' || b == '+' || b == '.' || b >= utf8.RuneSelf ||
-			mayStartWord(b) || lowerByte(b) == 'a' || lowerByte(b) == 'f'
+		switch {
+		case isDigitByte(b) || b == '-' || b == '+' || b == '.' || b >= utf8.RuneSelf:
+			quantityStart[c] = qsAlways
+		case mayStartWord(b) || lowerByte(b) == 'a' || lowerByte(b) == 'f':
+			quantityStart[c] = qsPair
+		}
 	}
 }
 
@@ -123,8 +136,13 @@ func lookupUnit(s string) (unit, bool) {
 	if len(s) > len(buf) {
 		return unit{}, false
 	}
-	return foldedUnits.get(string(lowerASCII(buf[:0], s)))
+	return foldedUnits.get(bufString(lowerASCII(buf[:0], s)))
 }
+
+// bufString returns the bytes of b, a buffer on the caller's stack, as
+// a string without copying them: the string is only looked up in a
+// table and does not outlive the buffer.
+func bufString(b []byte) string { return unsafe.String(unsafe.SliceData(b), len(b)) }
 
 // wordTable finds a spelling among the few dozen of a table. It is an
 // open-addressing hash table whose hash reads only the length and the
@@ -171,10 +189,24 @@ func (t *wordTable) get(s string) (unit, bool) {
 		if k == 0 {
 			return unit{}, false
 		}
-		if t.keys[k-1] == s {
+		if sameBytes(t.keys[k-1], s) {
 			return t.vals[k-1], true
 		}
 	}
+}
+
+// sameBytes is a == b for the short spellings of the tables, compared
+// byte by byte: == calls the runtime's memequal once the lengths agree.
+func sameBytes(a, b string) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for i := 0; i < len(a); i++ {
+		if a[i] != b[i] {
+			return false
+		}
+	}
+	return true
 }
 
 // quantityWordPair reports whether a word of words.tsv starts with the
@@ -182,6 +214,20 @@ func (t *wordTable) get(s string) (unit, bool) {
 func quantityWordPair(a, b byte) bool {
 	pair := uint16(lowerByte(a))<<8 | uint16(lowerByte(b))
 	return quantityWordPairs[pair/64]&(1<<(pair%64)) != 0
+}
+
+// The classes of quantityStart.
+const (
+	qsNever  = iota // starts no quantity
+	qsAlways        // may start a number
+	qsPair          // may start a word of words.tsv, "at" or "for"
+)
+
+// quantityStartPair reports whether a word of words.tsv, "at" or "for"
+// starts with the bytes a, b, regardless of ASCII case.
+func quantityStartPair(a, b byte) bool {
+	pair := uint16(lowerByte(a))<<8 | uint16(lowerByte(b))
+	return quantityStartPairs[pair/64]&(1<<(pair%64)) != 0
 }
 
 // lowerByte returns c in lower case if it is an ASCII letter.
@@ -229,21 +275,21 @@ func mayStartWord(c byte) bool { return quantityWordStarts[c|0x20] || quantityWo
 // quantityWord looks up the words ws, joined by one space, in words.tsv,
 // without regard to ASCII case.
 func (p *parser) quantityWord(ws []tok) (unit, bool) {
-	if !mayStartWord(p.src[ws[0].start]) {
+	if !mayStartWord(p.str[ws[0].start]) {
 		return unit{}, false
 	}
 	n := len(ws) - 1 // the spaces joining the words
 	for _, w := range ws {
-		n += w.end - w.start
+		n += int(w.end - w.start)
 	}
 	if n >= len(quantityWordLens) || !quantityWordLens[n] {
 		return unit{}, false
 	}
 	second := byte(' ')
 	if first := ws[0]; first.end-first.start > 1 {
-		second = p.src[first.start+1]
+		second = p.str[first.start+1]
 	}
-	if !quantityWordPair(p.src[ws[0].start], second) {
+	if !quantityWordPair(p.str[ws[0].start], second) {
 		return unit{}, false
 	}
 	var buf [48]byte
@@ -252,12 +298,12 @@ func (p *parser) quantityWord(ws []tok) (unit, bool) {
 		if i > 0 {
 			b = append(b, ' ')
 		}
-		if len(b)+w.end-w.start > len(buf) {
+		if len(b)+int(w.end-w.start) > len(buf) {
 			return unit{}, false
 		}
 		b = lowerASCII(b, p.str[w.start:w.end])
 	}
-	return quantityWords.get(string(b))
+	return quantityWords.get(bufString(b))
 }
 
 // number is a number read from the start of a word, with an optional
@@ -271,34 +317,38 @@ type number struct {
 }
 
 // readNumber reads an optionally signed decimal number, and an optional
-// range to a second, unsigned one ("0–25", "12-16"), from the start of w.
-// It accepts the hyphen, the Unicode minus sign (U+2212) and the en dash
-// (U+2013) as a leading minus, because all three reach notebooks through
-// copying from documents.
-func readNumber(w string) (number, bool) {
-	var n number
+// range to a second, unsigned one ("0–25", "12-16"), from the start of w
+// into n. It accepts the hyphen, the Unicode minus sign (U+2212) and the
+// en dash (U+2013) as a leading minus, because all three reach notebooks
+// through copying from documents. n is filled in place rather than
+// returned: a returned struct is copied through memory twice.
+func readNumber(w string, n *number) bool {
 	v, end, ok := readSigned(w)
 	if !ok {
-		return n, false
+		return false
 	}
-	n.value, n.end = v, end
+	*n = number{value: v, end: end}
+	if end == len(w) || w[end] != '-' && w[end] != '~' && w[end] != 0xE2 {
+		return true // no range: the common case
+	}
 	rest := w[end:]
-	if rest == "" || rest[0] != '-' && rest[0] != '~' && rest[0] != 0xE2 {
-		return n, true // no range: the common case
+	dash := 0 // the length of the dash: "-", "~", "–" or "−"
+	switch {
+	case rest[0] == '-' || rest[0] == '~':
+		dash = 1
+	case strings.HasPrefix(rest, "–") || strings.HasPrefix(rest, "−"):
+		dash = 3
 	}
-	for _, dash := range []string{"-", "–", "−", "~"} {
-		if strings.HasPrefix(rest, dash) {
-			after := rest[len(dash):]
-			if len(after) > 0 && (isDigitByte(after[0]) || after[0] == '.') {
-				if to, e, ok := readSigned(after); ok {
-					n.to, n.hasTo, n.toStart = to, true, end+len(dash)
-					n.end = end + len(dash) + e
-				}
+	if dash > 0 {
+		after := rest[dash:]
+		if len(after) > 0 && (isDigitByte(after[0]) || after[0] == '.') {
+			if to, e, ok := readSigned(after); ok {
+				n.to, n.hasTo, n.toStart = to, true, end+dash
+				n.end = end + dash + e
 			}
-			break
 		}
 	}
-	return n, true
+	return true
 }
 
 func isDigitByte(c byte) bool { return '0' <= c && c <= '9' }
@@ -307,30 +357,41 @@ func isDigitByte(c byte) bool { return '0' <= c && c <= '9' }
 func readSigned(w string) (float64, int, bool) {
 	i, neg := 0, false
 	if w != "" && !isDigitByte(w[0]) { // a digit first: the common case
-		for _, sign := range []string{"-", "−", "–", "+"} {
-			if strings.HasPrefix(w, sign) {
-				i, neg = len(sign), sign != "+"
-				break
-			}
+		switch {
+		case w[0] == '-':
+			i, neg = 1, true
+		case w[0] == '+':
+			i = 1
+		case strings.HasPrefix(w, "−") || strings.HasPrefix(w, "–"):
+			i, neg = 3, true
 		}
 	}
-	start, digits := i, 0
+	// The digits are gathered into m as they are read, as exactDecimal
+	// would gather them, so that they are read once.
+	start, digits, frac := i, 0, -1
+	var m uint64
 	for i < len(w) && isDigitByte(w[i]) {
+		m = m*10 + uint64(w[i]-'0')
 		i++
 		digits++
 	}
 	if i < len(w) && w[i] == '.' && i+1 < len(w) && isDigitByte(w[i+1]) {
 		i++
+		frac = 0
 		for i < len(w) && isDigitByte(w[i]) {
+			m = m*10 + uint64(w[i]-'0')
 			i++
 			digits++
+			frac++
 		}
 	}
 	if digits == 0 || digits > 30 {
 		return 0, 0, false
 	}
-	v, ok := exactDecimal(w[start:i], digits)
-	if !ok {
+	var v float64
+	if digits <= 15 {
+		v = exactValue(m, frac)
+	} else {
 		f, err := strconv.ParseFloat(w[start:i], 64)
 		if err != nil {
 			return 0, 0, false
@@ -367,7 +428,16 @@ func exactDecimal(s string, digits int) (float64, bool) {
 			frac++
 		}
 	}
-	return float64(m) / exactPow10[max(frac, 0)], true
+	return exactValue(m, frac), true
+}
+
+// exactValue is the number of at most 15 digits m with frac of them
+// after the point (-1 or 0: none), as exactDecimal tells.
+func exactValue(m uint64, frac int) float64 {
+	if frac <= 0 {
+		return float64(m) // a whole number: no division
+	}
+	return float64(m) / exactPow10[frac]
 }
 
 // readRatio reads "4:1" or "1:1:2" into p.nums and returns the range of
