@@ -296,18 +296,25 @@ func (t Term) End() source.Pos { return t.t.pos(t.n().end) }
 // term of the line and the first product.
 func (t Term) Sep() (Sep, bool) {
 	n := t.n()
-	if n.sub == 0 {
+	kind := SepKind(n.sub)
+	if n.kind != nTerm {
+		kind = SepKind(n.flags >> sepShift)
+	}
+	if kind == 0 {
 		return Sep{}, false
 	}
-	at := t.t.pos(n.c)
-	return Sep{Span: source.Span{Start: at, End: at + 1}, Kind: SepKind(n.sub)}, true
+	at := t.t.pos(t.t.sepBefore(n.start))
+	return Sep{Span: source.Span{Start: at, End: at + 1}, Kind: kind}, true
 }
 
 // Substance returns the term's substance, and false when it holds only
 // quantities.
 func (t Term) Substance() (Substance, bool) {
 	n := t.n()
-	if n.flags&termSubstance == 0 {
+	switch {
+	case n.kind == nSubstance:
+		return Substance{t.t, t.i}, true
+	case n.kind == nQuantity || n.flags&termSubstance == 0:
 		return Substance{}, false
 	}
 	return Substance{t.t, t.i + n.a}, true
@@ -326,15 +333,23 @@ func (t Term) firstQuantity() int32 {
 // Quantities returns the term's quantities in the order written (before
 // and after the substance, and inside parentheses).
 func (t Term) Quantities() Quantities {
-	nq, _ := unpack16(t.n().b)
-	return Quantities{t.t, t.firstQuantity(), nq}
+	switch t.n().kind {
+	case nQuantity:
+		return Quantities{t.t, t.i, 1}
+	case nSubstance:
+		return Quantities{}
+	}
+	return Quantities{t.t, t.firstQuantity(), t.n().b}
 }
 
 // Notes returns the parenthesised texts that are not quantities, such as
 // "(freshly distilled)".
 func (t Term) Notes() Notes {
-	nq, nn := unpack16(t.n().b)
-	return Notes{t.t, t.firstQuantity() + nq, nn}
+	n := t.n()
+	if n.kind != nTerm {
+		return Notes{}
+	}
+	return Notes{t.t, t.firstQuantity() + n.b, n.c}
 }
 
 // SubstanceKind says how a substance is written.

@@ -46,10 +46,11 @@ const (
 //	           whose nodes follow the step's in this order, and then
 //	           the terms
 //	mark:      sub the MarkState
-//	term:      sub the SepKind (0: no separator), c its offset; a the
-//	           first child: the substance if flags has termSubstance,
-//	           then the quantities, then the notes, whose numbers b
-//	           holds (see counts)
+//	term:      sub the SepKind (0: no separator); a the first child:
+//	           the substance if flags has termSubstance, then b
+//	           quantities, then c notes. A term of one part is written
+//	           as that part, a substance or a quantity node, in the
+//	           term's place, with the SepKind in flags (sepShift)
 //	substance: sub the SubstanceKind; flags plainText; a the ratio;
 //	           b the first part, c their number
 //	quantity:  sub the QuantityKind; flags hasValue; unit the unit's id
@@ -68,15 +69,29 @@ type node struct {
 	a, b, c    int32
 }
 
-// Two counts or offsets of at most 64 Ki share one field: no line is
-// longer than MaxLineLength, 16 KiB, so no count or distance within one
-// line reaches 1<<16.
-const _ = uint(1<<16 - 1 - MaxLineLength)
+// sepShift is where the SepKind of a term written as its one part
+// stands in the part's flags, above the part's own flag.
+const sepShift = 1
 
-// pack16 and unpack16 keep two such numbers in one field.
-func pack16(lo, hi int32) int32 { return lo | hi<<16 }
-
-func unpack16(v int32) (lo, hi int32) { return v & 0xffff, int32(uint32(v) >> 16) }
+// sepBefore returns the offset of the separator before a term that
+// starts at offset start. Only spaces stand between them, as the lexer
+// skips nothing else, so the Tree need not keep it: it is the last byte
+// before the spaces, read backwards by the rule of parser.spaceAt.
+func (t *Tree) sepBefore(start int32) int32 {
+	s := t.src[:start]
+	for {
+		switch n := len(s); {
+		case n >= 1 && (s[n-1] == ' ' || s[n-1] == '\t'):
+			s = s[:n-1]
+		case n >= 2 && s[n-2] == 0xC2 && s[n-1] == 0xA0:
+			s = s[:n-2]
+		case n >= 3 && s[n-3] == 0xE2 && s[n-2] == 0x80 && (s[n-1] == 0x82 || s[n-1] == 0x83 || s[n-1] == 0x89 || s[n-1] == 0xAF):
+			s = s[:n-3]
+		default:
+			return int32(n - 1)
+		}
+	}
+}
 
 func (t *Tree) pos(rel int32) source.Pos { return t.base + source.Pos(rel) }
 
