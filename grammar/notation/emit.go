@@ -2,16 +2,13 @@ package notation
 
 import "walden/grammar/source"
 
-// emit appends the drafted step p.st to the nodes of t and returns the
+// emit appends the drafted step e.p.st to e's nodes and returns the
 // index of its node. A step's nodes form one block: the step, its
 // optional parts, its terms (reactants, conditions, products), then each
 // term's children, so that every list a handle reads is contiguous.
-func (p *parser) emit(t *Tree) int32 {
+func (e *emitter) emit() int32 {
+	p := e.p
 	st := &p.st
-	// The nodes are appended to a slice on the stack and stored back
-	// once: storing a slice into the Tree on every append would pass the
-	// garbage collector's write barrier each time.
-	e := emitter{p: p, base: t.base, nodes: t.nodes}
 	si := e.add(nStep, st.Span)
 	var flags uint8
 	if st.hasMark {
@@ -42,14 +39,18 @@ func (p *parser) emit(t *Tree) int32 {
 	n := &e.nodes[si]
 	n.flags = flags
 	n.a, n.b, n.c = int32(st.nR), int32(st.nC), int32(st.nP)
-	t.nodes = e.nodes
 	return si
 }
 
-// emitter appends the nodes of a step to those of a Tree.
+// emitter appends the nodes of steps to a slice, as the nodes of a Tree
+// based at base. Its caller keeps it, on its stack, for all the lines it
+// writes: storing the slice into a Tree on every append would pass the
+// garbage collector's write barrier each time, and making an emitter
+// for each line is a composite copied in wide loads over narrow stores,
+// which stalls the processor.
 type emitter struct {
 	p     *parser
-	base  source.Pos // the Tree's base
+	base  source.Pos
 	nodes []node
 }
 
@@ -184,17 +185,4 @@ func (e *emitter) quantity(qi int32, d *draftQuantity) {
 	if d.Kind != Ratio {
 		n.b, n.c = e.rel(d.UnitSpan.Start), e.rel(d.UnitSpan.End)
 	}
-}
-
-// emitScratch writes the drafted step into the parser's node buffer, as
-// the nodes of a Tree based at base, and returns them; the step's node
-// is the first. The buffer stays in the cache from line to line, and
-// its nodes are then copied at once into the Tree, whose size is known
-// only now: this is cheaper than walking the drafts to size the Tree
-// first, or writing the nodes one by one into memory just allocated.
-func (p *parser) emitScratch(base source.Pos) []node {
-	scratch := Tree{base: base, nodes: p.nodes[:0]}
-	p.emit(&scratch)
-	p.nodes = scratch.nodes
-	return p.nodes
 }

@@ -82,9 +82,15 @@ func Parse(line []byte, base source.Pos) (Step, source.ErrorList) {
 		p.str = unsafe.String(unsafe.SliceData(line), len(line))
 	}
 	errs := p.parse()
-	from := p.emitScratch(base)
+	// The nodes are written into the parser's buffer, which stays in the
+	// cache from line to line, and then copied at once into the Tree,
+	// whose size is known only now: this is cheaper than walking the
+	// drafts to size the Tree first.
+	e := emitter{p: p, base: base, nodes: p.nodes[:0]}
+	e.emit()
+	p.nodes = e.nodes
 	t := &Tree{base: base}
-	t.nodes, t.src = nodesAndText(from, p.str)
+	t.nodes, t.src = nodesAndText(e.nodes, p.str)
 	p.str = ""
 	return Step{t, 0}, errs
 }
@@ -177,13 +183,13 @@ func parseRun(text []byte, host string, spans []source.Span, steps []Step) (errs
 	// size. Allocating with make and copy leaves the memory unzeroed, and
 	// Trees of that size reuse the memory the runtime keeps for small
 	// objects.
-	scratch := Tree{nodes: p.nodes[:0]}
-	defer func() { p.nodes = scratch.nodes }()
+	e := emitter{p: p, nodes: p.nodes[:0]}
+	defer func() { p.nodes = e.nodes }()
 	first := 0
 	flush := func(to, n int) {
 		// make followed at once by copy from a variable allocates
 		// without zeroing.
-		from := scratch.nodes[:n]
+		from := e.nodes[:n]
 		nodes := make([]node, n)
 		copy(nodes, from)
 		t := &Tree{src: host, nodes: nodes}
@@ -193,12 +199,12 @@ func parseRun(text []byte, host string, spans []source.Span, steps []Step) (errs
 		first = to
 	}
 	for i, sp := range spans {
-		start := int32(len(scratch.nodes))
+		start := e.next()
 		p.errs = nil
 		if sp.Start < 0 || sp.Start > sp.End || int(sp.End) > len(text) {
 			// A caller's mistake, reported rather than panicking.
 			errs.Add(sp, "bad-span", fmt.Sprintf("line span %d-%d lies outside the %d-byte text", sp.Start, sp.End, len(text)))
-			emitBad(&scratch, sp)
+			e.add(nStep, sp) // an empty step
 		} else {
 			p.src, p.base = text[sp.Start:sp.End], sp.Start
 			p.str = ""
@@ -206,18 +212,18 @@ func parseRun(text []byte, host string, spans []source.Span, steps []Step) (errs
 				p.str = host[sp.Start:sp.End]
 			}
 			errs = append(errs, p.parse()...)
-			p.emit(&scratch)
+			e.emit()
 		}
-		if len(scratch.nodes) > treeNodes && start > 0 {
+		if len(e.nodes) > treeNodes && start > 0 {
 			// This line's nodes overflow the Tree: it starts the next.
 			flush(i, int(start))
-			scratch.nodes = scratch.nodes[:copy(scratch.nodes, scratch.nodes[start:])]
+			e.nodes = e.nodes[:copy(e.nodes, e.nodes[start:])]
 			start = 0
 		}
 		steps[i].i = start
 	}
 	if len(spans) > first {
-		flush(len(spans), len(scratch.nodes))
+		flush(len(spans), len(e.nodes))
 	}
 	return errs
 }
@@ -226,14 +232,6 @@ func parseRun(text []byte, host string, spans []source.Span, steps []Step) (errs
 // line of more): as many 24-byte nodes (TestNodeSize) as fit in 32 KiB,
 // the largest of the runtime's small objects; a hundred steps or so.
 const treeNodes = 32 << 10 / 24
-
-// emitBad appends the empty step of a span outside the text, which has
-// no offsets in it, and returns its index.
-func emitBad(t *Tree, sp source.Span) int32 {
-	i := int32(len(t.nodes))
-	t.nodes = append(t.nodes, node{kind: nStep, start: int32(sp.Start), end: int32(sp.End)})
-	return i
-}
 
 // parse reads p.src into p.st and returns the line's errors.
 func (p *parser) parse() source.ErrorList {
