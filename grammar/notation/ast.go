@@ -1,7 +1,6 @@
 package notation
 
 import (
-	"math/bits"
 	"strings"
 
 	"walden/grammar/source"
@@ -41,8 +40,8 @@ func (s Step) Pos() source.Pos { return s.t.pos(s.n().start) }
 // End returns the end of the line.
 func (s Step) End() source.Pos { return s.t.pos(s.n().end) }
 
-// Step flags say which of the optional nodes follow the step's node, in
-// this order.
+// Step flags say which optional parts the line has. The step's node
+// holds them (see node): a line's parts are short offsets into it.
 const (
 	hasMark uint8 = 1 << iota
 	hasLabel
@@ -50,88 +49,105 @@ const (
 	hasComment
 )
 
-// optional returns the node of the optional part flag, which follows the
-// step's node after the optional parts present before it.
-func (s Step) optional(flag uint8) (*node, bool) {
-	f := s.n().flags
-	if f&flag == 0 {
-		return nil, false
-	}
-	k := s.i + 1
-	for b := uint8(1); b < flag; b <<= 1 {
-		if f&b != 0 {
-			k++
+// at returns the host offset off bytes into the line.
+func (s Step) at(off int32) source.Pos { return s.t.pos(s.n().start + off) }
+
+// after returns the offset into the line of the first byte at or after
+// off that is no space, by the rule of parser.spaceAt.
+func (s Step) after(off int32) int32 {
+	n := s.n()
+	for off < n.end-n.start {
+		k := spaceLen(s.t.src[n.start+off : n.end])
+		if k == 0 {
+			break
 		}
+		off += int32(k)
 	}
-	return &s.t.nodes[k], true
+	return off
 }
 
 // Mark returns the status mark ("[x]", "[-]" or "[ ]") at the start of
 // the line, and false when there is none.
 func (s Step) Mark() (Mark, bool) {
-	n, ok := s.optional(hasMark)
-	if !ok {
+	n := s.n()
+	if n.flags&hasMark == 0 {
 		return Mark{}, false
 	}
-	return Mark{Span: s.t.span(n), State: MarkState(n.sub)}, true
+	at := s.after(0) // the mark opens the line
+	return Mark{Span: source.Span{Start: s.at(at), End: s.at(at + 3)}, State: MarkState(n.sub)}, true
 }
 
 // Label returns the "name:" naming this step's product, and false when
 // there is none.
 func (s Step) Label() (Label, bool) {
-	n, ok := s.optional(hasLabel)
-	if !ok {
+	n := s.n()
+	if n.flags&hasLabel == 0 {
 		return Label{}, false
 	}
-	sp := s.t.span(n)
+	// The label is the first word, after the mark if there is one.
+	var from int32
+	if n.flags&hasMark != 0 {
+		from = s.after(0) + 3
+	}
+	end, _ := unpack16(n.c)
+	sp := source.Span{Start: s.at(s.after(from)), End: s.at(end)}
 	name := source.Span{Start: sp.Start, End: sp.End - 1}
 	return Label{Span: sp, Name: s.t.text(name), NameSpan: name}, true
 }
 
 // Arrow returns the "->" or "→", and false when the line has none.
 func (s Step) Arrow() (Arrow, bool) {
-	n, ok := s.optional(hasArrow)
-	if !ok {
+	n := s.n()
+	if n.flags&hasArrow == 0 {
 		return Arrow{}, false
 	}
-	return Arrow{Span: s.t.span(n)}, true
+	_, off := unpack16(n.b)
+	width := int32(3) // "→" or "⟶"
+	if s.t.src[n.start+off] == '-' {
+		width = 2 // "->"
+	}
+	return Arrow{Span: source.Span{Start: s.at(off), End: s.at(off + width)}}, true
 }
 
 // Comment returns the "// ..." to the end of the line, and false when
 // there is none.
 func (s Step) Comment() (Comment, bool) {
-	n, ok := s.optional(hasComment)
-	if !ok {
+	n := s.n()
+	if n.flags&hasComment == 0 {
 		return Comment{}, false
 	}
-	sp := s.t.span(n)
+	_, off := unpack16(n.c)
+	sp := source.Span{Start: s.at(off), End: s.End()}
 	return Comment{Span: sp, Text: strings.TrimSpace(s.t.text(source.Span{Start: sp.Start + 2, End: sp.End}))}, true
 }
 
-// firstTerm returns the index of the step's first term, which follows
-// the step's node and its optional parts.
-func (s Step) firstTerm() int32 {
-	return s.i + 1 + int32(bits.OnesCount8(s.n().flags&(hasMark|hasLabel|hasArrow|hasComment)))
+// counts returns the numbers of reactants, conditions and products.
+func (s Step) counts() (nR, nC, nP int32) {
+	n := s.n()
+	nR, nC = unpack16(n.a)
+	nP, _ = unpack16(n.b)
+	return nR, nC, nP
 }
 
 // Reactants returns the terms before the first ", "; the first holds the
-// substrate.
+// substrate. The terms follow the step's node.
 func (s Step) Reactants() Terms {
-	return Terms{s.t, s.firstTerm(), s.n().a}
+	nR, _, _ := s.counts()
+	return Terms{s.t, s.i + 1, nR}
 }
 
 // Conditions returns the terms after the first ", " (solvents,
 // temperatures, times, further reagents).
 func (s Step) Conditions() Terms {
-	n := s.n()
-	return Terms{s.t, s.firstTerm() + n.a, n.b}
+	nR, nC, _ := s.counts()
+	return Terms{s.t, s.i + 1 + nR, nC}
 }
 
 // Products returns the terms after the arrow, joined by " + "; none when
 // the arrow asks for a prediction.
 func (s Step) Products() Terms {
-	n := s.n()
-	return Terms{s.t, s.firstTerm() + n.a + n.b, n.c}
+	nR, nC, nP := s.counts()
+	return Terms{s.t, s.i + 1 + nR + nC, nP}
 }
 
 // Substrate returns the substance of the first reactant, and false when
@@ -148,8 +164,8 @@ func (s Step) Substrate() (Substance, bool) {
 // Blank reports whether the line holds no reaction: nothing but a mark,
 // a label, a comment or spaces.
 func (s Step) Blank() bool {
-	n := s.n()
-	return n.a == 0 && n.b == 0 && n.c == 0 && n.flags&hasArrow == 0
+	nR, nC, nP := s.counts()
+	return nR == 0 && nC == 0 && nP == 0 && s.n().flags&hasArrow == 0
 }
 
 // Terms is a list of terms of one step.

@@ -3,30 +3,33 @@ package notation
 import "walden/grammar/source"
 
 // emit appends the drafted step e.p.st to e's nodes and returns the
-// index of its node. A step's nodes form one block: the step, its
-// optional parts, its terms (reactants, conditions, products), then each
-// term's children, so that every list a handle reads is contiguous.
+// index of its node. A step's nodes form one block: the step, its terms
+// (reactants, conditions, products), then each term's children, so that
+// every list a handle reads is contiguous.
 func (e *emitter) emit() int32 {
 	p := e.p
 	st := &p.st
 	si := e.add(nStep, st.Span)
+	// The optional parts are offsets into the line, kept in the step's
+	// node (see node).
+	line := st.Span.Start
 	var flags uint8
+	var arrowAt, labelEnd, commentAt int32
 	if st.hasMark {
 		flags |= hasMark
-		k := e.add(nMark, st.mark.Span)
-		e.nodes[k].sub = uint8(st.mark.State)
+		e.nodes[si].sub = uint8(st.mark.State)
 	}
 	if st.hasLabel {
 		flags |= hasLabel
-		e.add(nLabel, st.label)
+		labelEnd = int32(st.label.End - line)
 	}
 	if st.hasArrow {
 		flags |= hasArrow
-		e.add(nArrow, st.arrow)
+		arrowAt = int32(st.arrow.Start - line)
 	}
 	if st.hasComment {
 		flags |= hasComment
-		e.add(nComment, st.comment)
+		commentAt = int32(st.comment.Start - line)
 	}
 	first := e.next()
 	for _, id := range p.order {
@@ -38,7 +41,9 @@ func (e *emitter) emit() int32 {
 	}
 	n := &e.nodes[si]
 	n.flags = flags
-	n.a, n.b, n.c = int32(st.nR), int32(st.nC), int32(st.nP)
+	n.a = pack16(int32(st.nR), int32(st.nC))
+	n.b = pack16(int32(st.nP), arrowAt)
+	n.c = pack16(labelEnd, commentAt)
 	return si
 }
 

@@ -26,10 +26,6 @@ type nodeKind uint8
 
 const (
 	nStep nodeKind = iota + 1
-	nMark
-	nLabel
-	nArrow
-	nComment
 	nTerm
 	nSubstance
 	nQuantity
@@ -41,11 +37,13 @@ const (
 // distances forward from the node, 0 meaning none. The other fields
 // mean, by kind:
 //
-//	step:      a, b, c the number of reactants, conditions, products;
-//	           flags the optional parts (mark, label, arrow, comment),
-//	           whose nodes follow the step's in this order, and then
-//	           the terms
-//	mark:      sub the MarkState
+//	step:      the terms follow it; flags the optional parts (hasMark
+//	           and kin); sub the MarkState; a the numbers of reactants
+//	           and conditions, b that of products and where the arrow
+//	           starts, c where the label ends and the comment starts,
+//	           as pairs (pack16) of offsets into the line. The mark
+//	           opens the line and the label follows it, after spaces;
+//	           the comment runs to the line's end
 //	term:      sub the SepKind (0: no separator); a the first child:
 //	           the substance if flags has termSubstance, then b
 //	           quantities, then c notes. A term of one part is written
@@ -68,6 +66,15 @@ type node struct {
 	start, end int32
 	a, b, c    int32
 }
+
+// pack16 and unpack16 keep two numbers below 1<<16 in one field: counts
+// and offsets within one line, which is at most MaxLineLength long.
+func pack16(lo, hi int32) int32 { return lo | hi<<16 }
+
+func unpack16(v int32) (lo, hi int32) { return v & 0xffff, int32(uint32(v) >> 16) }
+
+// Lines fit pack16.
+const _ = uint(1<<16 - 1 - MaxLineLength)
 
 // sepShift is where the SepKind of a term written as its one part
 // stands in the part's flags, above the part's own flag.
