@@ -4,6 +4,8 @@ import (
 	"bytes"
 	"encoding/json"
 	"fmt"
+	"runtime"
+	"sync"
 	"testing"
 
 	"walden/grammar/notation"
@@ -100,9 +102,9 @@ func BenchmarkFind10000(b *testing.B) {
 	}
 }
 
-// BenchmarkNotebook10000: the same page cut into 1,000 markdown cells of
-// a Jupyter notebook, read and parsed.
-func BenchmarkNotebook10000(b *testing.B) {
+// notebook10000 is the page of BenchmarkMarkdown10000 cut into 1,000
+// markdown cells of a Jupyter notebook.
+func notebook10000(b *testing.B) []byte {
 	text := page(10000)
 	var cells []map[string]any
 	for _, chunk := range bytes.SplitAfter(text, []byte("\nNext batch.\n")) {
@@ -112,6 +114,13 @@ func BenchmarkNotebook10000(b *testing.B) {
 	if err != nil {
 		b.Fatal(err)
 	}
+	return data
+}
+
+// BenchmarkNotebook10000: the notebook read, and its steps parsed line
+// by line with notation.Parse.
+func BenchmarkNotebook10000(b *testing.B) {
+	data := notebook10000(b)
 	b.SetBytes(int64(len(data)))
 	b.ReportAllocs()
 	b.ResetTimer()
@@ -130,6 +139,61 @@ func BenchmarkNotebook10000(b *testing.B) {
 		}
 		if n != 10000 {
 			b.Fatalf("%d steps", n)
+		}
+	}
+}
+
+// BenchmarkNotebook10000Batch: the same with each cell read by
+// notation.ParseLines, the cells shared out between the cores as a
+// reader of a whole notebook does (cells are separate texts, and one of
+// ten steps is too short for ParseLines to share out itself).
+func BenchmarkNotebook10000Batch(b *testing.B) {
+	data := notebook10000(b)
+	b.SetBytes(int64(len(data)))
+	b.ReportAllocs()
+	b.ResetTimer()
+	defer benchcpu.Measure(b)()
+	for range b.N {
+		nb, errs := ReadNotebook(data)
+		if len(errs) > 0 {
+			b.Fatal(errs)
+		}
+		workers := runtime.GOMAXPROCS(0)
+		counts := make([]int, workers)
+		var wg sync.WaitGroup
+		for w := range workers {
+			wg.Add(1)
+			go func() {
+				defer wg.Done()
+				cells := nb.Cells[w*len(nb.Cells)/workers : (w+1)*len(nb.Cells)/workers]
+				var spans []source.Span
+				for _, c := range cells {
+					spans = spans[:0]
+					for _, l := range c.Page.Lines {
+						spans = append(spans, l.Span)
+					}
+					steps, _ := notation.ParseLines(c.Text, spans)
+					counts[w] += len(steps)
+				}
+			}()
+		}
+		wg.Wait()
+		if n := counts[0] + counts[len(counts)-1]; workers == 2 && n != 10000 {
+			b.Fatalf("%d steps", n)
+		}
+	}
+}
+
+// BenchmarkReadNotebook10000: reading the notebook only.
+func BenchmarkReadNotebook10000(b *testing.B) {
+	data := notebook10000(b)
+	b.SetBytes(int64(len(data)))
+	b.ReportAllocs()
+	b.ResetTimer()
+	defer benchcpu.Measure(b)()
+	for range b.N {
+		if _, errs := ReadNotebook(data); len(errs) > 0 {
+			b.Fatal(errs)
 		}
 	}
 }

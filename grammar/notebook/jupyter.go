@@ -54,6 +54,15 @@ func ReadNotebook(data []byte) (*Notebook, source.ErrorList) {
 			"notebook is %d bytes; walden reads notebooks up to %d bytes: clear the cell outputs and try again", len(data), MaxNotebookSize))
 		return &Notebook{}, errs
 	}
+	if nb, ok := readFast(data); ok {
+		return nb, nil
+	}
+	return readChecked(data)
+}
+
+// readChecked reads a notebook with encoding/json, token by token, and
+// words the error of a notebook it cannot read.
+func readChecked(data []byte) (*Notebook, source.ErrorList) {
 	r := &nbReader{data: data, dec: json.NewDecoder(bytes.NewReader(data))}
 	nb, err := r.notebook()
 	if err != nil {
@@ -61,8 +70,7 @@ func ReadNotebook(data []byte) (*Notebook, source.ErrorList) {
 		if !errors.As(err, &e) {
 			e = r.wrap(err)
 		}
-		errs = append(errs, e)
-		return &Notebook{}, errs
+		return &Notebook{}, source.ErrorList{e}
 	}
 	return nb, nil
 }
