@@ -5,6 +5,7 @@ import (
 	"runtime"
 	"strconv"
 	"sync"
+	"sync/atomic"
 	"unicode/utf16"
 	"unicode/utf8"
 
@@ -61,17 +62,31 @@ func readFast(data []byte) (*Notebook, bool) {
 	if s.i != len(data) || format != 4 || !sawCells {
 		return nil, false
 	}
-	finishCells(nb.Cells)
+	if !finishCells(data, nb.Cells, s.sources) {
+		return nil, false
+	}
 	return nb, true
 }
 
-// finishCells makes each cell's Mapper and finds the step lines of the
+// finishCells decodes each cell's source from its JSON value, which
+// the scan only skipped, makes its Mapper and finds the step lines of the
 // markdown cells, on every core when there are many: cells are separate
-// texts, and a notebook of a thousand cells spends as long on them as on
-// its JSON.
-func finishCells(cells []*Cell) {
-	finish := func(cells []*Cell) {
-		for _, c := range cells {
+// texts, and a notebook of a thousand cells spends longer on them than
+// on the rest of its JSON. It reports false when a source is not one
+// readFast reads.
+func finishCells(data []byte, cells []*Cell, sources []source.Span) bool {
+	var failed atomic.Bool
+	finish := func(lo, hi int) {
+		var s scanner
+		for k := lo; k < hi; k++ {
+			c, raw := cells[k], sources[k]
+			s.data, s.i = data[:raw.End], int(raw.Start)
+			text, ok := s.source()
+			if !ok || s.i != int(raw.End) {
+				failed.Store(true)
+				return
+			}
+			c.Text = text
 			c.Mapper = source.NewMapper(c.Text)
 			if c.Kind == "markdown" {
 				c.Page = FindMarkdown(c.Text)
@@ -80,19 +95,20 @@ func finishCells(cells []*Cell) {
 	}
 	workers := min(runtime.GOMAXPROCS(0), len(cells)/parallelCells)
 	if workers < 2 {
-		finish(cells)
-		return
+		finish(0, len(cells))
+		return !failed.Load()
 	}
 	var wg sync.WaitGroup
 	for w := range workers - 1 {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			finish(cells[w*len(cells)/workers : (w+1)*len(cells)/workers])
+			finish(w*len(cells)/workers, (w+1)*len(cells)/workers)
 		}()
 	}
-	finish(cells[(workers-1)*len(cells)/workers:]) // the calling goroutine takes the last share
+	finish((workers-1)*len(cells)/workers, len(cells)) // the calling goroutine takes the last share
 	wg.Wait()
+	return !failed.Load()
 }
 
 // parallelCells is the fewest cells per goroutine in finishCells, about
@@ -101,9 +117,10 @@ const parallelCells = 64
 
 // scanner reads JSON (RFC 8259) from data at i.
 type scanner struct {
-	data []byte
-	i    int
-	buf  []byte // a string being decoded, reused
+	data    []byte
+	i       int
+	buf     []byte        // a string being decoded, reused
+	sources []source.Span // the cells' sources as JSON, for finishCells
 }
 
 // maxDepth is the deepest nesting value skips, as encoding/json allows.
@@ -169,6 +186,7 @@ func (s *scanner) cells(nb *Notebook) bool {
 			return false
 		}
 		sawSource := false
+		var raw source.Span // the source's JSON value
 		for first := true; ; first = false {
 			s.space()
 			if s.byte('}') {
@@ -189,10 +207,19 @@ func (s *scanner) cells(nb *Notebook) bool {
 				}
 				c.Kind = string(kind)
 			case "source":
-				sawSource = true
-				if c.Text, ok = s.source(); !ok {
+				// Only where the source ends is found here: it is decoded,
+				// and so checked, by finishCells, on every core. A
+				// second source would go unchecked: encoding/json reads
+				// such a cell.
+				if sawSource {
 					return false
 				}
+				sawSource = true
+				at := s.i
+				if !s.skipSource() {
+					return false
+				}
+				raw = span(at, s.i)
 			default:
 				if !s.value(0) {
 					return false
@@ -204,6 +231,7 @@ func (s *scanner) cells(nb *Notebook) bool {
 		}
 		c.JSON = span(start, s.i)
 		nb.Cells = append(nb.Cells, c)
+		s.sources = append(s.sources, raw)
 	}
 }
 
@@ -233,6 +261,51 @@ func (s *scanner) source() ([]byte, bool) {
 			return nil, false
 		}
 		text = append(text, b...)
+	}
+}
+
+// skipSource moves past a cell's source, a string or a list of strings,
+// finding only where it ends.
+func (s *scanner) skipSource() bool {
+	if s.i < len(s.data) && s.data[s.i] == '"' {
+		return s.skipStr()
+	}
+	if !s.byte('[') {
+		return false
+	}
+	for first := true; ; first = false {
+		s.space()
+		if s.byte(']') {
+			return true
+		}
+		if !first && !(s.byte(',') && s.spaceThen()) {
+			return false
+		}
+		if s.i >= len(s.data) || s.data[s.i] != '"' || !s.skipStr() {
+			return false
+		}
+	}
+}
+
+// skipStr moves past the string at s.i, looking only at quotes and
+// backslashes; its bytes are checked when it is decoded.
+func (s *scanner) skipStr() bool {
+	j := s.i + 1 // after the opening quote
+	for {
+		for j+8 <= len(s.data) && quoteOrBackslash8(le64(s.data[j:])) == 0 {
+			j += 8
+		}
+		for j < len(s.data) && s.data[j] != '"' && s.data[j] != '\\' {
+			j++
+		}
+		switch {
+		case j >= len(s.data):
+			return false
+		case s.data[j] == '"':
+			s.i = j + 1
+			return true
+		}
+		j += 2 // a backslash and the byte it escapes
 	}
 }
 
@@ -304,9 +377,15 @@ func le64(b []byte) uint64 {
 func special8(x uint64) uint64 {
 	const ones, highs = 0x0101010101010101, 0x8080808080808080
 	control := (x - 0x20*ones) &^ x & highs
+	return (x | control | quoteOrBackslash8(x)) & highs
+}
+
+// quoteOrBackslash8 is special8 for quotes and backslashes only.
+func quoteOrBackslash8(x uint64) uint64 {
+	const ones, highs = 0x0101010101010101, 0x8080808080808080
 	quote := ((x ^ '"'*ones) - ones) &^ (x ^ '"'*ones) & highs
 	backslash := ((x ^ '\\'*ones) - ones) &^ (x ^ '\\'*ones) & highs
-	return (x | control | quote | backslash) & highs
+	return quote | backslash
 }
 
 // escape decodes the escape sequence at s.i.
