@@ -62,17 +62,19 @@
 //
 // Parse reads one line and ParseLines the lines of a page. Both give
 // Steps whose nodes live in a Tree: the text, kept once, and one slice
-// of small records holding offsets, kinds, counts and values, but no
-// pointers and no strings. Step, Term, Substance and Quantity are handles
-// (a Tree and an index) whose methods read those records; the few small
-// parts (Mark, Label, Sep, Arrow, Comment, Note) are returned as plain
-// values. Texts are slices of the Tree's text, made on demand; a unit or
-// quantity word is kept as an index into the tables of units.tsv and
-// words.tsv. A page of ten thousand steps read by ParseLines is so a
-// hundred or so allocations of 32 KiB that the garbage collector need not
-// scan, rather than a hundred thousand small ones full of pointers, which
-// is what makes opening a long notebook cheap. Lists are read with Len and
-// At:
+// of 24-byte records holding offsets, kinds and counts, but no pointers
+// and no strings. Step, Term, Substance and Quantity are handles (a Tree
+// and an index) whose methods read those records; the few small parts
+// (Mark, Label, Sep, Arrow, Comment, Note) are returned as plain values.
+// What the text already says is not stored again: texts are slices of
+// the Tree's text, made on demand; a quantity's number is read again
+// from it when asked for; a unit or quantity word is kept as an index
+// into the tables of units.tsv and words.tsv; a term of one part is
+// stored as that part. A step takes seven records or so, and a page of
+// ten thousand steps read by ParseLines is some fifty allocations of
+// 32 KiB that the garbage collector need not scan, rather than a hundred
+// thousand small ones full of pointers, which is what makes opening a
+// long notebook cheap. Lists are read with Len and At:
 //
 //	rs := st.Reactants()
 //	for i := range rs.Len() {
