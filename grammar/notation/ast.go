@@ -616,17 +616,16 @@ func (q Quantity) Ratio() []float64 {
 	if QuantityKind(n.sub) != Ratio {
 		return nil
 	}
-	// The parts are numbers separated by ':', each read whole when the
-	// ratio was read, so reading them again stops at each ':'.
-	var out []float64
-	for s := q.number(); ; {
-		v, end, _ := readSigned(s)
-		out = append(out, v)
-		if end >= len(s) || s[end] != ':' {
-			return out
+	// The ratio is the first word from the number on ("4:1 v/v").
+	w := q.number()
+	for i := range len(w) {
+		if spaceLen(w[i:]) > 0 {
+			w = w[:i]
+			break
 		}
-		s = s[end+1:]
 	}
+	out, _ := ratioParts(w, nil)
+	return out
 }
 
 // Quantities is a list of quantities of one term.

@@ -46,13 +46,11 @@ type draftQuantity struct {
 	id       int32
 	Span     source.Span
 	Kind     QuantityKind
-	Value    float64
-	HasValue bool
+	HasValue bool  // a number, which the Tree reads again from the text
 	unit     uint8 // index in unitNames
 	word     uint8 // index in wordNames
 	UnitSpan source.Span
 	to       int32 // the upper end of a range
-	r0, r1   int32 // a ratio's parts: parser.nums[r0:r1]
 }
 
 // slab hands out drafts of one type from chunks that are kept between

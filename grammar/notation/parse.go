@@ -40,7 +40,7 @@ type parser struct {
 	qlist      []int32       // the terms' quantities, by id
 	slist      []int32       // the mixtures' parts, by id
 	notes      []source.Span // the terms' notes
-	nums       []float64     // the ratios' parts
+	nums       []float64     // scratch for ratioParts
 	nodes      []node        // Parse's nodes before they are copied into the Tree
 	tokBuf     [32]tok
 	groupBuf   [16]tok
@@ -240,7 +240,7 @@ func (p *parser) parse() source.ErrorList {
 	p.subDrafts.reset()
 	p.qtyDrafts.reset()
 	p.order, p.qlist, p.slist = p.order[:0], p.qlist[:0], p.slist[:0]
-	p.notes, p.nums = p.notes[:0], p.nums[:0]
+	p.notes = p.notes[:0]
 	st := &p.st
 	*st = draftStep{}
 	st.Span = p.span(0, len(line))

@@ -306,11 +306,10 @@ func (p *parser) quantityWord(ws []tok) (unit, bool) {
 	return quantityWords.get(bufString(b))
 }
 
-// number is a number read from the start of a word, with an optional
-// range ("0–25", "12-16").
+// number is where a number read from the start of a word ends, with an
+// optional range ("0–25", "12-16"). Its values are not kept: the Tree
+// reads them again from the text (Quantity.Value).
 type number struct {
-	value   float64
-	to      float64
 	hasTo   bool
 	end     int // bytes of the word used
 	toStart int // where the upper end starts in the word
@@ -323,11 +322,11 @@ type number struct {
 // through copying from documents. n is filled in place rather than
 // returned: a returned struct is copied through memory twice.
 func readNumber(w string, n *number) bool {
-	v, end, ok := readSigned(w)
+	_, end, ok := readSigned(w)
 	if !ok {
 		return false
 	}
-	*n = number{value: v, end: end}
+	*n = number{end: end}
 	if end == len(w) || w[end] != '-' && w[end] != '~' && w[end] != 0xE2 {
 		return true // no range: the common case
 	}
@@ -342,8 +341,8 @@ func readNumber(w string, n *number) bool {
 	if dash > 0 {
 		after := rest[dash:]
 		if len(after) > 0 && (isDigitByte(after[0]) || after[0] == '.') {
-			if to, e, ok := readSigned(after); ok {
-				n.to, n.hasTo, n.toStart = to, true, end+dash
+			if _, e, ok := readSigned(after); ok {
+				n.hasTo, n.toStart = true, end+dash
 				n.end = end + dash + e
 			}
 		}
@@ -440,13 +439,13 @@ func exactValue(m uint64, frac int) float64 {
 	return float64(m) / exactPow10[frac]
 }
 
-// readRatio reads "4:1" or "1:1:2" into p.nums and returns the range of
-// its parts there.
-func (p *parser) readRatio(w string) (int32, int32, bool) {
+// ratioParts appends the parts of the ratio w ("4:1", "1:1:2") to out
+// and reports whether w is one: unsigned numbers joined by ':'.
+func ratioParts(w string, out []float64) ([]float64, bool) {
 	if strings.IndexByte(w, ':') < 0 {
-		return 0, 0, false
+		return out, false
 	}
-	r0 := len(p.nums)
+	n := len(out)
 	for rest := w; ; {
 		part := rest
 		k := strings.IndexByte(rest, ':')
@@ -455,16 +454,14 @@ func (p *parser) readRatio(w string) (int32, int32, bool) {
 		}
 		v, end, ok := readSigned(part)
 		if !ok || end != len(part) || strings.ContainsAny(part[:1], "-−–+") {
-			p.nums = p.nums[:r0]
-			return 0, 0, false
+			return out[:n], false
 		}
-		p.nums = append(p.nums, v)
+		out = append(out, v)
 		if k < 0 {
-			break
+			return out, true
 		}
 		rest = rest[k+1:]
 	}
-	return int32(r0), int32(len(p.nums)), true
 }
 
 // isLabelByte reports whether c may appear in a step label: ASCII letters,

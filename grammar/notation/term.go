@@ -247,9 +247,10 @@ func (p *parser) single(ws []tok, last bool) (*draftQuantity, int) {
 	}
 	w := p.text(ws[0])
 	if ws[0].marks&cColon != 0 { // a ratio holds ':'
-		if r0, r1, ok := p.readRatio(w); ok {
+		var ok bool
+		if p.nums, ok = ratioParts(w, p.nums[:0]); ok {
 			q := p.newQuantity()
-			q.Span, q.Kind, q.r0, q.r1 = p.tokSpan(ws[0], ws[0]), Ratio, r0, r1
+			q.Span, q.Kind = p.tokSpan(ws[0], ws[0]), Ratio
 			if len(ws) > 1 && foldsTo(p.text(ws[1]), "v/v") {
 				q.Span.End = p.tokSpan(ws[1], ws[1]).End
 				return q, 2
@@ -262,10 +263,10 @@ func (p *parser) single(ws []tok, last bool) (*draftQuantity, int) {
 		return nil, 0
 	}
 	q := p.newQuantity()
-	q.Span, q.Value, q.HasValue = p.tokSpan(ws[0], ws[0]), num.value, true
+	q.Span, q.HasValue = p.tokSpan(ws[0], ws[0]), true
 	if num.hasTo {
 		to := p.newQuantity()
-		to.Span, to.Value, to.HasValue = p.span(int(ws[0].start)+num.toStart, int(ws[0].start)+num.end), num.to, true
+		to.Span, to.HasValue = p.span(int(ws[0].start)+num.toStart, int(ws[0].start)+num.end), true
 		q.to = ref(to.id)
 	}
 	if w[num.end:] == "." {
