@@ -25,38 +25,24 @@ func readFast(data []byte) (*Notebook, bool) {
 	nb := &Notebook{}
 	format, sawCells := 0.0, false
 	s.space()
-	if !s.byte('{') {
-		return nil, false
-	}
-	for first := true; ; first = false {
-		s.space()
-		if s.byte('}') {
-			break
-		}
-		if !first && !(s.byte(',') && s.spaceThen()) {
-			return nil, false
-		}
+	ok := s.byte('{') && s.list('}', func() bool {
 		key, ok := s.key()
 		if !ok {
-			return nil, false
+			return false
 		}
 		switch string(key) {
 		case "nbformat":
 			v, ok := s.number()
-			if !ok || v != float64(int(v)) || v < 1 {
-				return nil, false
-			}
 			format = v
+			return ok && v == float64(int(v)) && v >= 1
 		case "cells":
 			sawCells = true
-			if !s.cells(nb) {
-				return nil, false
-			}
-		default:
-			if !s.value(0) {
-				return nil, false
-			}
+			return s.cells(nb)
 		}
+		return s.value(0)
+	})
+	if !ok {
+		return nil, false
 	}
 	s.space()
 	if s.i != len(data) || format != 4 || !sawCells {
@@ -137,10 +123,24 @@ func (s *scanner) space() {
 	}
 }
 
-// spaceThen skips spaces and reports true, for use after a separator.
-func (s *scanner) spaceThen() bool {
-	s.space()
-	return true
+// list reads the members of an object or the elements of a list, up to
+// end, with item, which reads one and reports whether it could.
+func (s *scanner) list(end byte, item func() bool) bool {
+	for first := true; ; first = false {
+		s.space()
+		if s.byte(end) {
+			return true
+		}
+		if !first {
+			if !s.byte(',') {
+				return false
+			}
+			s.space()
+		}
+		if !item() {
+			return false
+		}
+	}
 }
 
 // byte consumes c if it comes next.
@@ -169,32 +169,12 @@ func (s *scanner) key() ([]byte, bool) {
 
 // cells reads the list of cells.
 func (s *scanner) cells(nb *Notebook) bool {
-	if !s.byte('[') {
-		return false
-	}
-	for first := true; ; first = false {
-		s.space()
-		if s.byte(']') {
-			return true
-		}
-		if !first && !(s.byte(',') && s.spaceThen()) {
-			return false
-		}
+	return s.byte('[') && s.list(']', func() bool {
 		c := &Cell{Index: len(nb.Cells)}
 		start := s.i
-		if !s.byte('{') {
-			return false
-		}
 		sawSource := false
 		var raw source.Span // the source's JSON value
-		for first := true; ; first = false {
-			s.space()
-			if s.byte('}') {
-				break
-			}
-			if !first && !(s.byte(',') && s.spaceThen()) {
-				return false
-			}
+		ok := s.byte('{') && s.list('}', func() bool {
 			key, ok := s.key()
 			if !ok {
 				return false
@@ -202,37 +182,32 @@ func (s *scanner) cells(nb *Notebook) bool {
 			switch string(key) {
 			case "cell_type":
 				kind, ok := s.str()
-				if !ok {
-					return false
-				}
 				c.Kind = string(kind)
+				return ok
 			case "source":
-				// Only where the source ends is found here: it is decoded,
-				// and so checked, by finishCells, on every core. A
-				// second source would go unchecked: encoding/json reads
-				// such a cell.
+				// Only where the source ends is found here: it is
+				// decoded, and so checked, by finishCells, on every
+				// core. A second source would go unchecked:
+				// encoding/json reads such a cell.
 				if sawSource {
 					return false
 				}
 				sawSource = true
 				at := s.i
-				if !s.skipSource() {
-					return false
-				}
+				ok := s.skipSource()
 				raw = span(at, s.i)
-			default:
-				if !s.value(0) {
-					return false
-				}
+				return ok
 			}
-		}
-		if !sawSource {
+			return s.value(0)
+		})
+		if !ok || !sawSource {
 			return false
 		}
 		c.JSON = span(start, s.i)
 		nb.Cells = append(nb.Cells, c)
 		s.sources = append(s.sources, raw)
-	}
+		return true
+	})
 }
 
 // source reads a cell's source: a string, or a list of strings joined.
@@ -241,27 +216,13 @@ func (s *scanner) source() ([]byte, bool) {
 		b, ok := s.str()
 		return append(make([]byte, 0, len(b)), b...), ok
 	}
-	if !s.byte('[') {
-		return nil, false
-	}
-	var text []byte
-	for first := true; ; first = false {
-		s.space()
-		if s.byte(']') {
-			if text == nil {
-				text = []byte{} // as strings.Join of none gives ""
-			}
-			return text, true
-		}
-		if !first && !(s.byte(',') && s.spaceThen()) {
-			return nil, false
-		}
+	text := []byte{} // not nil: strings.Join of no strings gives ""
+	ok := s.byte('[') && s.list(']', func() bool {
 		b, ok := s.str()
-		if !ok {
-			return nil, false
-		}
 		text = append(text, b...)
-	}
+		return ok
+	})
+	return text, ok
 }
 
 // skipSource moves past a cell's source, a string or a list of strings,
@@ -270,21 +231,9 @@ func (s *scanner) skipSource() bool {
 	if s.i < len(s.data) && s.data[s.i] == '"' {
 		return s.skipStr()
 	}
-	if !s.byte('[') {
-		return false
-	}
-	for first := true; ; first = false {
-		s.space()
-		if s.byte(']') {
-			return true
-		}
-		if !first && !(s.byte(',') && s.spaceThen()) {
-			return false
-		}
-		if s.i >= len(s.data) || s.data[s.i] != '"' || !s.skipStr() {
-			return false
-		}
-	}
+	return s.byte('[') && s.list(']', func() bool {
+		return s.i < len(s.data) && s.data[s.i] == '"' && s.skipStr()
+	})
 }
 
 // skipStr moves past the string at s.i, looking only at quotes and
@@ -502,23 +451,14 @@ func (s *scanner) value(depth int) bool {
 			end = ']'
 		}
 		s.i++
-		for first := true; ; first = false {
-			s.space()
-			if s.byte(end) {
-				return true
-			}
-			if !first && !(s.byte(',') && s.spaceThen()) {
-				return false
-			}
+		return s.list(end, func() bool {
 			if c == '{' {
 				if _, ok := s.key(); !ok {
 					return false
 				}
 			}
-			if !s.value(depth + 1) {
-				return false
-			}
-		}
+			return s.value(depth + 1)
+		})
 	case 't':
 		return s.literal("true")
 	case 'f':
