@@ -52,13 +52,19 @@ func page(n int) []byte {
 	return b.Bytes()
 }
 
+// start begins the timing of a benchmark over n bytes, with allocations
+// and CPU time reported; the function it returns ends it.
+func start(b *testing.B, n int) func() {
+	b.SetBytes(int64(n))
+	b.ReportAllocs()
+	b.ResetTimer()
+	return benchcpu.Measure(b)
+}
+
 // BenchmarkMarkdown10000: find and parse every step of a 10,000-step page.
 func BenchmarkMarkdown10000(b *testing.B) {
 	text := page(10000)
-	b.SetBytes(int64(len(text)))
-	b.ReportAllocs()
-	b.ResetTimer()
-	defer benchcpu.Measure(b)()
+	defer start(b, len(text))()
 	for range b.N {
 		pg := FindMarkdown(text)
 		if len(pg.Lines) != 10000 {
@@ -74,10 +80,7 @@ func BenchmarkMarkdown10000(b *testing.B) {
 // whole page is read by the command line and on opening a document.
 func BenchmarkMarkdown10000Batch(b *testing.B) {
 	text := page(10000)
-	b.SetBytes(int64(len(text)))
-	b.ReportAllocs()
-	b.ResetTimer()
-	defer benchcpu.Measure(b)()
+	defer start(b, len(text))()
 	for range b.N {
 		pg := FindMarkdown(text)
 		spans := make([]source.Span, len(pg.Lines))
@@ -94,10 +97,7 @@ func BenchmarkMarkdown10000Batch(b *testing.B) {
 // BenchmarkFind10000: finding the lines only.
 func BenchmarkFind10000(b *testing.B) {
 	text := page(10000)
-	b.SetBytes(int64(len(text)))
-	b.ReportAllocs()
-	b.ResetTimer()
-	defer benchcpu.Measure(b)()
+	defer start(b, len(text))()
 	for range b.N {
 		FindMarkdown(text)
 	}
@@ -122,10 +122,7 @@ func notebook10000(b *testing.B) []byte {
 // by line with notation.Parse.
 func BenchmarkNotebook10000(b *testing.B) {
 	data := notebook10000(b)
-	b.SetBytes(int64(len(data)))
-	b.ReportAllocs()
-	b.ResetTimer()
-	defer benchcpu.Measure(b)()
+	defer start(b, len(data))()
 	for range b.N {
 		nb, errs := ReadNotebook(data)
 		if len(errs) > 0 {
@@ -150,10 +147,7 @@ func BenchmarkNotebook10000(b *testing.B) {
 // ten steps is too short for ParseLines to share out itself).
 func BenchmarkNotebook10000Batch(b *testing.B) {
 	data := notebook10000(b)
-	b.SetBytes(int64(len(data)))
-	b.ReportAllocs()
-	b.ResetTimer()
-	defer benchcpu.Measure(b)()
+	defer start(b, len(data))()
 	for range b.N {
 		nb, errs := ReadNotebook(data)
 		if len(errs) > 0 {
@@ -195,10 +189,7 @@ func BenchmarkNotebook10000Batch(b *testing.B) {
 // BenchmarkReadNotebook10000: reading the notebook only.
 func BenchmarkReadNotebook10000(b *testing.B) {
 	data := notebook10000(b)
-	b.SetBytes(int64(len(data)))
-	b.ReportAllocs()
-	b.ResetTimer()
-	defer benchcpu.Measure(b)()
+	defer start(b, len(data))()
 	for range b.N {
 		if _, errs := ReadNotebook(data); len(errs) > 0 {
 			b.Fatal(errs)
