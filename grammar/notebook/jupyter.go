@@ -30,16 +30,19 @@ type Cell struct {
 	Text  []byte      // the cell's source, joined when stored as a list of strings
 	JSON  source.Span // where the cell object sits in the .ipynb file
 	Page  *Page       // the step lines found; nil for cells that are not markdown
-	// Mapper converts offsets in Text to the cell's own LSP lines and
-	// UTF-16 characters, as an editor addresses a notebook cell.
-	Mapper *source.Mapper
 }
+
+// Mapper returns a new Mapper of the cell's Text, which converts offsets
+// to the cell's own LSP lines and UTF-16 characters, as an editor
+// addresses a notebook cell. It is made when asked for: most readers of
+// a notebook need it for none of its cells, or for a few.
+func (c *Cell) Mapper() *source.Mapper { return source.NewMapper(c.Text) }
 
 // Where returns a readable location for p in the cell, with 1-based
 // cell, line and column numbers (columns count characters), as in
 // "cell 3, line 2, column 5".
 func (c *Cell) Where(p source.Pos) string {
-	pt := c.Mapper.Point(p)
+	pt := c.Mapper().Point(p)
 	return fmt.Sprintf("cell %d, line %d, column %d", c.Index+1, pt.Line, pt.Column)
 }
 
@@ -249,7 +252,6 @@ func (r *nbReader) cells(nb *Notebook) error {
 		if !sawSource {
 			return r.errorAt(start, "notebook-shape", "cell %d has no \"source\"", c.Index+1)
 		}
-		c.Mapper = source.NewMapper(c.Text)
 		if c.Kind == "markdown" {
 			c.Page = FindMarkdown(c.Text)
 		}

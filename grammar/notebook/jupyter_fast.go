@@ -55,8 +55,8 @@ func readFast(data []byte) (*Notebook, bool) {
 }
 
 // finishCells decodes each cell's source from its JSON value, which
-// the scan only skipped, makes its Mapper and finds the step lines of the
-// markdown cells, on every core when there are many: cells are separate
+// the scan only skipped, and finds the step lines of the markdown cells,
+// on every core when there are many: cells are separate
 // texts, and a notebook of a thousand cells spends longer on them than
 // on the rest of its JSON. It reports false when a source is not one
 // readFast reads.
@@ -73,7 +73,6 @@ func finishCells(data []byte, cells []*Cell, sources []source.Span) bool {
 				return
 			}
 			c.Text = text
-			c.Mapper = source.NewMapper(c.Text)
 			if c.Kind == "markdown" {
 				c.Page = FindMarkdown(c.Text)
 			}
