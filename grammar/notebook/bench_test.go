@@ -118,16 +118,22 @@ func notebook10000(b *testing.B) []byte {
 	return data
 }
 
+// mustRead reads a notebook the benchmark made.
+func mustRead(b *testing.B, data []byte) *Notebook {
+	nb, errs := ReadNotebook(data)
+	if len(errs) > 0 {
+		b.Fatal(errs)
+	}
+	return nb
+}
+
 // BenchmarkNotebook10000: the notebook read, and its steps parsed line
 // by line with notation.Parse.
 func BenchmarkNotebook10000(b *testing.B) {
 	data := notebook10000(b)
 	defer start(b, len(data))()
 	for range b.N {
-		nb, errs := ReadNotebook(data)
-		if len(errs) > 0 {
-			b.Fatal(errs)
-		}
+		nb := mustRead(b, data)
 		n := 0
 		for _, c := range nb.Cells {
 			for _, l := range c.Page.Lines {
@@ -149,10 +155,7 @@ func BenchmarkNotebook10000Batch(b *testing.B) {
 	data := notebook10000(b)
 	defer start(b, len(data))()
 	for range b.N {
-		nb, errs := ReadNotebook(data)
-		if len(errs) > 0 {
-			b.Fatal(errs)
-		}
+		nb := mustRead(b, data)
 		// The cells are taken in turn, a few dozen at a time, so that a
 		// core the collector holds for a while delays only its share.
 		const chunk = 32
@@ -191,8 +194,6 @@ func BenchmarkReadNotebook10000(b *testing.B) {
 	data := notebook10000(b)
 	defer start(b, len(data))()
 	for range b.N {
-		if _, errs := ReadNotebook(data); len(errs) > 0 {
-			b.Fatal(errs)
-		}
+		mustRead(b, data)
 	}
 }
