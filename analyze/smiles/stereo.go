@@ -296,6 +296,23 @@ func (p *parser) doubleBonds() {
 			}
 			continue
 		}
+		if crowdedEnd(m, ends, into) {
+			// An end with three neighbours or more besides its double
+			// bond (a hypervalent atom) has no two sides to tell apart:
+			// marks there configure nothing, as in a small ring (common
+			// practice: RDKit perceives double-bond stereo only at ends
+			// of degree two or three; from memory), and reading them as
+			// if it had two would let two spellings of one molecule
+			// differ.
+			for s, end := range ends {
+				for _, e := range m.Edges(end) {
+					if e.Bond != into[s] && p.notes[e.Bond].dir != 0 {
+						used[e.Bond] = true
+					}
+				}
+			}
+			continue
+		}
 		var refs [2]int
 		var sides [2]int
 		clash := [2]int{-1, -1}
@@ -415,6 +432,23 @@ func inSmallRing(m *molecule.Molecule, bi int) bool {
 				dist[e.Atom] = dist[a] + 1
 				queue = append(queue, e.Atom)
 			}
+		}
+	}
+	return false
+}
+
+// crowdedEnd reports whether an end of the double bond (or cumulated
+// chain) reached through into has more than two other neighbours.
+func crowdedEnd(m *molecule.Molecule, ends, into [2]int) bool {
+	for s, end := range ends {
+		n := 0
+		for _, e := range m.Edges(end) {
+			if e.Bond != into[s] {
+				n++
+			}
+		}
+		if n > 2 {
+			return true
 		}
 	}
 	return false
