@@ -34,6 +34,8 @@ var handSet = []string{
 	"C/1=C/CCCCCC1",
 	"C/C=C/1C(/C=C1)=C2\\CC2", // marks on a cyclobutene's ring double bond say nothing (found by FuzzRoundTrip)
 	"C1CCC/C=C/CC1",
+	"F/[P](C)(C)=C/F",     // marks at a double-bond end with three other neighbours say nothing
+	"F/C=C/[P](C)(C)=C/F", // beside a configured bond, which keeps its own
 	"CC=[C@]=CC",
 	"CC=[C@@]=CC",
 	"NC(Br)=[C@]=C(O)C",

@@ -365,9 +365,9 @@ func TestCisTrans(t *testing.T) {
 		{"C1CC/C=C/CC1", nil, nil},
 		{"C1C/C=C\\C1", nil, nil},
 		// An end with three neighbours besides its double bond has no
-		// two sides (common practice; RDKit perceives double-bond
-		// stereo only at ends of degree two or three, from memory):
-		// nothing is recorded, wherever the marks stand.
+		// two sides (common practice; RDKit 2022.09 assigns it no stereo
+		// either, TestRDKitDoubleBondStereo): nothing is
+		// recorded, wherever the marks stand.
 		{"F/[P](C)(C)=C/F", nil, nil},
 		{"C[P](/F)(C)=C/F", nil, nil},
 		// Beside it, an ordinary configured bond keeps its own.

@@ -281,29 +281,15 @@ func (p *parser) doubleBonds() {
 		if count%2 == 0 {
 			continue
 		}
-		if count == 1 && inSmallRing(m, bi) {
-			// In a ring of fewer than eight atoms a double bond can only
-			// be cis: marks around it say nothing of it (common
-			// practice; RDKit ignores them too), so they neither
-			// configure it nor conflict, and keeping them would let two
+		if count == 1 && inSmallRing(m, bi) || crowdedEnd(m, ends, into) {
+			// Marks configure nothing around a double bond in a ring of
+			// fewer than eight atoms, which can only be cis, nor at an
+			// end with three neighbours or more besides its double bond
+			// (a hypervalent atom), which has no two sides to tell
+			// apart (common practice; RDKit 2022.09 assigns neither any
+			// stereo, TestRDKitDoubleBondStereo). Such marks neither
+			// configure nor conflict, and reading them would let two
 			// spellings of one molecule differ.
-			for _, end := range ends {
-				for _, e := range m.Edges(end) {
-					if e.Bond != bi && p.notes[e.Bond].dir != 0 {
-						used[e.Bond] = true
-					}
-				}
-			}
-			continue
-		}
-		if crowdedEnd(m, ends, into) {
-			// An end with three neighbours or more besides its double
-			// bond (a hypervalent atom) has no two sides to tell apart:
-			// marks there configure nothing, as in a small ring (common
-			// practice: RDKit perceives double-bond stereo only at ends
-			// of degree two or three; from memory), and reading them as
-			// if it had two would let two spellings of one molecule
-			// differ.
 			for s, end := range ends {
 				for _, e := range m.Edges(end) {
 					if e.Bond != into[s] && p.notes[e.Bond].dir != 0 {
